@@ -1,0 +1,72 @@
+// Demo workspace content. The scenario is invented: the fictional "Fjordlight Photonics" thin-film
+// group screens acene crystals for an imaginary organic photodetector stack. Geometries are built
+// from idealised ring geometry (C–C 1.40 Å, C–H 1.08 Å), not optimised; cells are invented,
+// plausible values for illustration only. Nothing here is a measurement.
+import type { MoleculeInput } from '../src/lib/schemas/molecule';
+import type { PolymorphInput } from '../src/lib/schemas/polymorph';
+
+/** A linear acene with n fused rings, planar in the xy plane, as XYZ text. */
+export function aceneXyz(rings: number, name: string): string {
+	const cc = 1.4;
+	const ch = 1.08;
+	const h = (cc * Math.sqrt(3)) / 2; // half-width of a ring along y
+	const atoms: [string, number, number, number][] = [];
+	const carbons: [number, number][] = [];
+	// ring centres along x, spaced by 2h (fused hexagons sharing vertical edges)
+	for (let i = 0; i <= rings; i++) {
+		const x = (i - rings / 2) * 2 * h;
+		carbons.push([x, cc / 2], [x, -cc / 2]);
+	}
+	for (let i = 0; i < rings; i++) {
+		const x = (i - rings / 2) * 2 * h + h;
+		carbons.push([x, cc], [x, -cc]);
+	}
+	for (const [x, y] of carbons) atoms.push(['C', x, y, 0]);
+	// hydrogens on the top/bottom apex carbons and on the four end carbons
+	for (let i = 0; i < rings; i++) {
+		const x = (i - rings / 2) * 2 * h + h;
+		atoms.push(['H', x, cc + ch, 0], ['H', x, -cc - ch, 0]);
+	}
+	for (const end of [0, rings]) {
+		const x = (end - rings / 2) * 2 * h;
+		const sx = end === 0 ? -1 : 1;
+		for (const sy of [1, -1]) {
+			atoms.push(['H', x + sx * ch * Math.cos(Math.PI / 6), sy * (cc / 2 + ch * Math.sin(Math.PI / 6)), 0]);
+		}
+	}
+	const lines = atoms.map(([el, x, y, z]) => `${el.padEnd(2)} ${x.toFixed(6).padStart(12)} ${y.toFixed(6).padStart(12)} ${z.toFixed(6).padStart(12)}`);
+	return `${atoms.length}\n${name} (idealised planar geometry, demo)\n${lines.join('\n')}\n`;
+}
+
+export interface DemoMolecule {
+	molecule: MoleculeInput;
+	polymorphs: PolymorphInput[];
+}
+
+const demoNote = 'Demo record: invented values for illustration, not a measurement.';
+
+export function demoMolecules(): DemoMolecule[] {
+	const acene = (rings: number, name: string, notes: string, polymorphs: PolymorphInput[]): DemoMolecule => ({
+		molecule: { name, formula: '', netCharge: 0, multiplicity: 1, geometryXyz: aceneXyz(rings, name), smiles: '', notes: `${notes}\n${demoNote}` },
+		polymorphs
+	});
+	const p = (label: string, spaceGroup: string, a: number, b: number, c: number, alphaDeg: number, betaDeg: number, gammaDeg: number, z: number, structureSource: string): PolymorphInput => ({
+		label, spaceGroup, a, b, c, alphaDeg, betaDeg, gammaDeg, z, temperatureK: 295, structureSource, notes: demoNote
+	});
+	return [
+		acene(2, 'Naphthalene (reference donor)', 'Small reference for the tuning workflow.', [
+			p('bulk (demo)', 'P2_1/a', 8.1, 5.9, 8.6, 90, 124, 90, 2, 'invented demo cell')
+		]),
+		acene(3, 'Anthracene (interlayer candidate)', 'Candidate hole-transport interlayer for the photodetector stack.', [
+			p('bulk (demo)', 'P2_1/a', 8.6, 6.0, 11.2, 90, 125, 90, 2, 'invented demo cell'),
+			p('thin film on oxide (demo)', 'P-1', 6.0, 7.7, 11.6, 88, 92, 95, 2, 'invented demo cell')
+		]),
+		acene(4, 'Tetracene (absorber)', 'Absorber layer: compare bulk and film screening.', [
+			p('bulk (demo)', 'P-1', 6.1, 7.8, 13.0, 77, 72, 85, 2, 'invented demo cell')
+		]),
+		acene(5, 'Pentacene (absorber, long wavelength)', 'Long-wavelength absorber; two phases seen in the group’s films.', [
+			p('bulk (demo)', 'P-1', 6.3, 7.7, 14.4, 77, 88, 84, 2, 'invented demo cell'),
+			p('thin-film phase (demo)', 'P-1', 5.9, 7.6, 15.6, 81, 87, 90, 2, 'invented demo cell')
+		])
+	];
+}

@@ -1,0 +1,47 @@
+// Seeds the demo workspace when the database has no users yet. Run by `npm start`.
+import { readFileSync } from 'node:fs';
+import { pathToFileURL } from 'node:url';
+import { createDb, type Db } from '../src/lib/server/db/create-db';
+import { signUp } from '../src/lib/server/services/accounts';
+import { createMolecule } from '../src/lib/server/services/molecules';
+import { createPolymorph } from '../src/lib/server/services/polymorphs';
+import { createWorkspace } from '../src/lib/server/repo/workspaces';
+import { demoMolecules } from './demo-data';
+
+export async function seedDemo(db: Db, creds: { email: string; password: string; viewerEmail: string; viewerPassword: string }): Promise<string> {
+	const owner = await signUp(db, { email: creds.email, password: creds.password, name: 'Demo Researcher' });
+	const viewer = await signUp(db, { email: creds.viewerEmail, password: creds.viewerPassword, name: 'Demo Collaborator (experiment)' });
+	const wsId = await createWorkspace(db, 'Fjordlight Photonics — acene screening (demo)', owner.userId, true);
+	await db.insertInto('membership').values({ workspace_id: wsId, user_id: viewer.userId, role: 'viewer' }).execute();
+	const actor = { userId: owner.userId, workspaceId: wsId, role: 'owner' as const };
+	for (const d of demoMolecules()) {
+		const m = await createMolecule(db, actor, d.molecule);
+		for (const p of d.polymorphs) await createPolymorph(db, actor, m.id, p);
+	}
+	return wsId;
+}
+
+async function main() {
+	const url = process.env.DATABASE_URL;
+	if (!url) throw new Error('DATABASE_URL is not set');
+	const db = createDb(url, { max: 2 });
+	try {
+		const users = await db.selectFrom('User').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
+		if (Number(users.n) > 0) {
+			console.log('seed: database already has users, leaving it as it is');
+			return;
+		}
+		const creds = JSON.parse(readFileSync(new URL('./demo-credentials.json', import.meta.url), 'utf8'));
+		await seedDemo(db, creds);
+		console.log('seed: demo workspace created');
+	} finally {
+		await db.destroy();
+	}
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1]).href) {
+	main().catch((e) => {
+		console.error(e);
+		process.exit(1);
+	});
+}

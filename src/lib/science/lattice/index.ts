@@ -1,0 +1,10 @@
+export type { Matrix3, UnitCell, Vec3 } from './types';
+export { assertCell } from './cell-trig';
+export { cellVolumeA3 } from './cell-volume';
+export { cellMatrix } from './cell-matrix';
+export { fractionalToCartesian } from './fractional-to-cartesian';
+export { cartesianToFractional } from './cartesian-to-fractional';
+export { volumePerMoleculeA3 } from './volume-per-molecule';
+export { densityGPerCm3 } from './density';
+export { bornRadiusA } from './born-radius';
+export { cellVolumeSuA3, type UnitCellSu } from './cell-volume-su';
