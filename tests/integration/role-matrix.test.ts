@@ -12,10 +12,13 @@ import type { Need } from './policy/types';
  * `${routeId} ${GET|POST|PATCH|DELETE|?/action}` -> the least role allowed, one file per feature in
  * ./policy (so features added side by side do not edit the same table).
  */
-const POLICY: Record<string, Need> = Object.assign(
-	{},
-	...Object.values(import.meta.glob<{ policy: Record<string, Need> }>('./policy/*.ts', { eager: true })).map((m) => m.policy ?? {})
-);
+type PolicyModule = {
+	policy: Record<string, Need>;
+	/** Creates the feature's records in the team workspace; returns ids by URL segment (e.g. { studies: id }). */
+	seed?: (db: Db, fx: Awaited<ReturnType<typeof teamFixture>>) => Promise<Record<string, string>>;
+};
+const policyModules = Object.values(import.meta.glob<PolicyModule>('./policy/*.ts', { eager: true })).filter((m) => m.policy);
+const POLICY: Record<string, Need> = Object.assign({}, ...policyModules.map((m) => m.policy));
 
 const serverModules = import.meta.glob(['/src/routes/**/+page.server.ts', '/src/routes/**/+server.ts']);
 const pageFiles = Object.keys(import.meta.glob('/src/routes/**/+page.svelte'));
@@ -41,20 +44,26 @@ async function discoverRoutes(): Promise<string[]> {
 let db: Db;
 let fx: Awaited<ReturnType<typeof teamFixture>>;
 const cookies: Record<string, string> = {};
+let ids: Record<string, string> = {};
 
 beforeAll(async () => {
 	db = appDb();
 	fx = await teamFixture(db);
+	ids = { molecules: fx.molecule.id, polymorphs: fx.polymorph.id };
+	for (const m of policyModules) if (m.seed) Object.assign(ids, await m.seed(db, fx));
 	for (const who of ['owner', 'editor', 'viewer', 'outsider'] as const) cookies[who] = await signInCookie(fx[who].email, PASSWORD);
 });
 afterAll(async () => db?.destroy());
 
 function urlFor(routeId: string): string {
+	// Each `<segment>/[param=uuid]` takes the id seeded for that segment (molecules, polymorphs, ...).
 	const path = routeId
 		.replace(/\/\([^)]+\)/g, '')
 		.replace('[ws=uuid]', fx.ws)
-		.replace(/polymorphs\/\[id=uuid\]/, `polymorphs/${fx.polymorph.id}`)
-		.replace(/molecules\/\[id=uuid\]/, `molecules/${fx.molecule.id}`)
+		.replace(/([\w-]+)\/\[\w+=uuid\]/g, (whole, segment: string) => {
+			if (!ids[segment]) throw new Error(`no id seeded for ${whole}: export a seed() from the feature's policy file`);
+			return `${segment}/${ids[segment]}`;
+		})
 		.replace('[token]', 'not-a-real-token');
 	return path || '/';
 }

@@ -1,3 +1,7 @@
+import type { TuningTables } from './schema-tuning';
+import type { DielectricTables } from './schema-dielectric';
+import type { LevelsTables } from './schema-levels';
+import type { ApiTables } from './schema-api';
 import type { ColumnType, Generated, Insertable, Selectable, Updateable } from 'kysely';
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
@@ -135,7 +139,8 @@ export interface ActivityTable {
 	created_at: Timestamp;
 }
 
-export interface Database {
+/** Foundation tables; each feature adds its own in a schema-<feature>.ts file, joined below. */
+export interface CoreTables {
 	User: UserTable;
 	Account: AccountTable;
 	Session: SessionTable;
@@ -150,6 +155,8 @@ export interface Database {
 	polymorph: PolymorphTable;
 	activity: ActivityTable;
 }
+
+export interface Database extends CoreTables, TuningTables, DielectricTables, LevelsTables, ApiTables {}
 
 export type MoleculeRow = Selectable<MoleculeTable>;
 export type NewMoleculeRow = Insertable<MoleculeTable>;
