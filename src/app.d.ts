@@ -3,6 +3,8 @@ declare global {
 	namespace App {
 		interface Locals {
 			user: { id: string; email: string; name: string | null } | null;
+			/** Set when the request authenticated with a personal API token (Authorization: Bearer). */
+			token?: { id: string; workspaceId: string; role: 'owner' | 'editor' | 'viewer' };
 		}
 		interface Error {
 			message: string;

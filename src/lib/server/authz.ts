@@ -25,8 +25,11 @@ export function requireUser(event: RequestEvent): SessionUser {
  */
 export async function requireRole(event: RequestEvent, workspaceId: string, need: Role): Promise<Actor & { workspaceName: string; isDemo: boolean }> {
 	const user = requireUser(event);
+	const token = event.locals.token;
+	if (token && token.workspaceId !== workspaceId) error(404, 'Not found');
 	const m = await findMembership(db(), workspaceId, user.id);
 	if (!m) error(404, 'Not found');
+	if (token && !atLeast(token.role, need)) error(403, `this needs the ${need} role; the token has the ${token.role} role`);
 	if (!atLeast(m.role, need)) error(403, `this needs the ${need} role; you are ${m.role === 'viewer' ? 'a viewer' : `an ${m.role}`} in this workspace`);
-	return { userId: user.id, workspaceId, role: m.role, workspaceName: m.name, isDemo: m.is_demo };
+	return { userId: user.id, workspaceId, role: token?.role ?? m.role, workspaceName: m.name, isDemo: m.is_demo };
 }

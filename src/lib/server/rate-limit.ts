@@ -25,3 +25,6 @@ export async function hitRateLimit(
 	const ends = new Date(row.window_start).getTime() + windowSeconds * 1000;
 	return { allowed: row.count <= limit, retryAfterSeconds: Math.max(1, Math.ceil((ends - Date.now()) / 1000)) };
 }
+
+/** Requests one API token may make per window before it gets 429 (a test can lower it through the environment). */
+export const TOKEN_RATE_LIMIT = { requests: Number(process.env.KAPPALINE_TOKEN_RATE_LIMIT) || 600, windowSeconds: 60 };

@@ -1,6 +1,5 @@
 /** Engine decks (NWChem, Psi4) for SRSH tuning and screened reruns, and the NWChem output reader. */
 export { DeckInputError, EngineOutputError } from './errors';
-export { ELEMENT_SYMBOLS, atomicNumber, canonicalElement } from './elements';
 export {
 	type CheckedMolecule,
 	type DeckAtom,
@@ -42,6 +41,7 @@ export {
 	MAX_SCAN_POINTS,
 	NWCHEM_GRIDS,
 	type NwchemDeck,
+	type NwchemDeckOptions,
 	type NwchemDeckState,
 	type NwchemGrid,
 	type NwchemScanOptions,

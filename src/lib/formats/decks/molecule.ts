@@ -2,10 +2,11 @@
  * The molecule a deck describes, and the charged states a gamma-tuning job needs.
  *
  * Kept local to the deck writers on purpose (atoms in Å, integer charge, spin multiplicity 2S+1), so
- * the writers do not depend on other format modules.
+ * the writers do not depend on other format modules. Element symbols and atomic numbers come from the
+ * science core's table (`$lib/science/elements`, H to Rn).
  */
 import { DeckInputError } from './errors';
-import { atomicNumber, canonicalElement } from './elements';
+import { elementBySymbol } from '$lib/science/elements';
 
 /** One atom: element symbol and Cartesian position in Å. */
 export interface DeckAtom {
@@ -91,8 +92,8 @@ export function checkMolecule(molecule: DeckMolecule, field = 'molecule'): Check
 	let nuclearCharge = 0;
 	molecule.atoms.forEach((atom, i) => {
 		const f = `${field}.atoms[${i}]`;
-		const element = typeof atom?.element === 'string' ? canonicalElement(atom.element) : null;
-		if (element === null) {
+		const known = typeof atom?.element === 'string' ? elementBySymbol(atom.element) : undefined;
+		if (known === undefined) {
 			throw new DeckInputError(`${f}.element`, `unknown element symbol ${JSON.stringify(atom?.element)}`);
 		}
 		for (const axis of ['x', 'y', 'z'] as const) {
@@ -104,8 +105,8 @@ export function checkMolecule(molecule: DeckMolecule, field = 'molecule'): Check
 				throw new DeckInputError(`${f}.${axis}`, `|${axis}| = ${Math.abs(v)} Å exceeds ${MAX_COORDINATE_A} Å; check the unit`);
 			}
 		}
-		nuclearCharge += atomicNumber(element) as number;
-		atoms.push({ element, x: atom.x, y: atom.y, z: atom.z });
+		nuclearCharge += known.atomicNumber;
+		atoms.push({ element: known.symbol, x: atom.x, y: atom.y, z: atom.z });
 	});
 	for (let i = 0; i < atoms.length; i++) {
 		for (let j = i + 1; j < atoms.length; j++) {

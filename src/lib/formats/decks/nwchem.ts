@@ -153,7 +153,7 @@ function engineNotes(p: SrshParameters, fileName: string, jobName: string): stri
 		'Keep the order cam, cam_alpha, cam_beta: NWChem reads them positionally and any other order sets both fractions to 0 without a warning.',
 		'NWChem prints alpha, beta and gamma rounded to 2 decimals in its output; the values on the cam line are the ones used.',
 		`Output files are named after the start name "${jobName}"; each state writes its own .movecs file.`,
-		`Run: mpirun -np 2 nwchem ${fileName} > ${jobName}.out`
+		`Run: mpirun -np 2 nwchem ${fileName} > ${fileName.replace(/\.nw$/, '')}.out`
 	];
 }
 
@@ -222,6 +222,23 @@ function prepare(job: NwchemJobBase): Prepared {
 	return { base, provenance, settings, molecule };
 }
 
+/** How deck files are named. */
+export interface NwchemDeckOptions {
+	/**
+	 * `start` (default): `<start name>.nw`, unique across a whole scan. `state`: after what the deck
+	 * holds (`neutral.nw`, `cation.nw`, `anion.nw`, `neutral-cation-anion.nw` for the three states in
+	 * one deck), for layouts where the folder carries gamma or epsilon. The start name (and so the
+	 * scratch files) stays unique either way.
+	 */
+	fileNames?: 'start' | 'state';
+}
+
+function checkFileNames(options: NwchemDeckOptions | undefined): 'start' | 'state' {
+	const f = options?.fileNames ?? 'start';
+	if (f !== 'start' && f !== 'state') throw new DeckInputError('fileNames', `fileNames must be start or state, got ${JSON.stringify(f)}`);
+	return f;
+}
+
 function render(
 	kind: 'tuning' | 'screened',
 	prep: Prepared,
@@ -229,10 +246,12 @@ function render(
 	jobName: string,
 	folder: string,
 	states: DeckState[],
-	purpose: string
+	purpose: string,
+	fileNames: 'start' | 'state' = 'start'
 ): NwchemDeck {
 	checkJobName(jobName, 'jobName', MAX_JOB_NAME);
-	const fileName = deckFileName(jobName, 'nw');
+	const fileName =
+		fileNames === 'start' ? deckFileName(jobName, 'nw') : `${states.map((s) => s.label).join('-')}.nw`;
 	const molName = titleText(prep.provenance.molecule, 24) || prep.base;
 	const deckStates: NwchemDeckState[] = states.map((s) => ({
 		...s,
@@ -293,25 +312,27 @@ function statesFor(job: NwchemTuningJob, prep: Prepared): DeckState[] {
  * single `start` per input, so the states share one start name inside this deck; use
  * {@link writeNwchemTuningStateDecks} for one deck (and one start name) per state.
  */
-export function writeNwchemTuningJob(job: NwchemTuningJob): NwchemDeck {
+export function writeNwchemTuningJob(job: NwchemTuningJob, options: NwchemDeckOptions = {}): NwchemDeck {
+	const fileNames = checkFileNames(options);
 	const prep = prepare(job);
 	const parameters = gasPhaseSrsh(job.alpha, job.gammaBohrInv);
 	const tag = gammaTag(parameters.gammaBohrInv);
-	return render('tuning', prep, parameters, `${prep.base}_${tag}`, tag, statesFor(job, prep), TUNING_PURPOSE);
+	return render('tuning', prep, parameters, `${prep.base}_${tag}`, tag, statesFor(job, prep), TUNING_PURPOSE, fileNames);
 }
 
 /** Three decks for one gamma, one per state, each with its own start name `<job>_<gamma tag>_<state>`. */
-export function writeNwchemTuningStateDecks(job: NwchemTuningJob): NwchemDeck[] {
+export function writeNwchemTuningStateDecks(job: NwchemTuningJob, options: NwchemDeckOptions = {}): NwchemDeck[] {
+	const fileNames = checkFileNames(options);
 	const prep = prepare(job);
 	const parameters = gasPhaseSrsh(job.alpha, job.gammaBohrInv);
 	const tag = gammaTag(parameters.gammaBohrInv);
 	return statesFor(job, prep).map((state) =>
-		render('tuning', prep, parameters, `${prep.base}_${tag}_${state.label}`, tag, [state], TUNING_PURPOSE)
+		render('tuning', prep, parameters, `${prep.base}_${tag}_${state.label}`, tag, [state], TUNING_PURPOSE, fileNames)
 	);
 }
 
 /** Options of {@link writeNwchemTuningScan}. */
-export interface NwchemScanOptions {
+export interface NwchemScanOptions extends NwchemDeckOptions {
 	/** `combined`: one deck per gamma (default); `per-state`: three decks per gamma. */
 	layout?: 'combined' | 'per-state';
 }
@@ -330,6 +351,7 @@ export const MAX_SCAN_POINTS = 200;
  */
 export function writeNwchemTuningScan(scan: NwchemTuningScan, options: NwchemScanOptions = {}): NwchemDeck[] {
 	const layout = options.layout ?? 'combined';
+	const fileNames = checkFileNames(options);
 	if (layout !== 'combined' && layout !== 'per-state') {
 		throw new DeckInputError('layout', `layout must be combined or per-state, got ${JSON.stringify(layout)}`);
 	}
@@ -352,7 +374,7 @@ export function writeNwchemTuningScan(scan: NwchemTuningScan, options: NwchemSca
 	const { gammasBohrInv: _omit, ...rest } = scan;
 	return gammas.flatMap((g) => {
 		const job: NwchemTuningJob = { ...rest, gammaBohrInv: g };
-		return layout === 'combined' ? [writeNwchemTuningJob(job)] : writeNwchemTuningStateDecks(job);
+		return layout === 'combined' ? [writeNwchemTuningJob(job, { fileNames })] : writeNwchemTuningStateDecks(job, { fileNames });
 	});
 }
 
@@ -360,7 +382,8 @@ export function writeNwchemTuningScan(scan: NwchemTuningScan, options: NwchemSca
  * The screened rerun: the neutral alone with beta = 1/epsilon - alpha (negative beta is legal and
  * written as is), gamma unchanged. Start name `<job>_<gamma tag>_<epsilon tag>`.
  */
-export function writeNwchemScreenedJob(job: NwchemScreenedJob): NwchemDeck {
+export function writeNwchemScreenedJob(job: NwchemScreenedJob, options: NwchemDeckOptions = {}): NwchemDeck {
+	const fileNames = checkFileNames(options);
 	const prep = prepare(job);
 	const parameters = screenedSrsh(job.alpha, job.gammaBohrInv, job.epsilon);
 	const gTag = gammaTag(parameters.gammaBohrInv);
@@ -372,6 +395,7 @@ export function writeNwchemScreenedJob(job: NwchemScreenedJob): NwchemDeck {
 		`${prep.base}_${gTag}_${eTag}`,
 		`screened_${eTag}`,
 		[neutralState(prep.molecule)],
-		SCREENED_PURPOSE
+		SCREENED_PURPOSE,
+		fileNames
 	);
 }
