@@ -5,13 +5,16 @@ import { createDb, type Db } from '../src/lib/server/db/create-db';
 import { signUp } from '../src/lib/server/services/accounts';
 import { createMolecule } from '../src/lib/server/services/molecules';
 import { createPolymorph } from '../src/lib/server/services/polymorphs';
-import { createWorkspace } from '../src/lib/server/repo/workspaces';
 import { demoMolecules } from './demo-data';
 
 export async function seedDemo(db: Db, creds: { email: string; password: string; viewerEmail: string; viewerPassword: string }): Promise<string> {
 	const owner = await signUp(db, { email: creds.email, password: creds.password, name: 'Demo Researcher' });
 	const viewer = await signUp(db, { email: creds.viewerEmail, password: creds.viewerPassword, name: 'Demo Collaborator (experiment)' });
-	const wsId = await createWorkspace(db, 'Fjordlight Photonics — acene screening (demo)', owner.userId, true);
+	// The demo users' personal workspaces become (owner) or give way to (collaborator) the demo workspace,
+	// so both land in it after signing in.
+	const wsId = owner.workspaceId;
+	await db.updateTable('workspace').set({ name: 'Fjordlight Photonics — acene screening (demo)', is_demo: true }).where('id', '=', wsId).execute();
+	await db.deleteFrom('workspace').where('id', '=', viewer.workspaceId).execute();
 	await db.insertInto('membership').values({ workspace_id: wsId, user_id: viewer.userId, role: 'viewer' }).execute();
 	const actor = { userId: owner.userId, workspaceId: wsId, role: 'owner' as const };
 	for (const d of demoMolecules()) {

@@ -114,6 +114,40 @@ step('add a polymorph; volume and density are computed', async () => {
 	await shot(page, '04-polymorph');
 });
 
+step('solid-state levels: screened parameters, Born estimate, sweep chart, measurement', async () => {
+	await page.getByRole('link', { name: 'Solid-state levels' }).click();
+	await page.waitForURL(/\/levels$/);
+	await page.getByTestId('cautions').waitFor();
+	assert((await page.getByTestId('estimate-missing').textContent())?.includes('epsilon in use'), 'missing-epsilon message not shown');
+	await page.getByTestId('typed-ip').fill('9.2');
+	await page.getByTestId('typed-ea').fill('-0.8');
+	await page.getByTestId('epsilon-override').fill('2.5');
+	// beta = 1/2.5 - 0.2 = 0.2 (science notes section 2)
+	await page.getByTestId('beta').getByText('0.2000').waitFor();
+	const gap = Number(await page.getByTestId('gap-solid').textContent());
+	// V/Z = 474.06/4 Å^3 -> a = (3 V/(4 pi))^(1/3) = 3.0472 Å; P = 14.399645/(2a) (1 - 1/2.5) = 1.4177 eV;
+	// gap = 10.0 - 2 P = 7.165 eV (hand arithmetic)
+	assert(Math.abs(gap - 7.165) < 0.002, `solid gap shown as ${gap}`);
+	await page.locator('[data-testid="sweep-chart"] canvas').first().waitFor();
+	await page.getByText('Add a measurement').click();
+	const f = page.locator('form[action="?/addMeasurement"]');
+	await f.getByLabel('IP (eV)').fill('8.9');
+	await f.getByLabel('EA (eV)').fill('-0.4');
+	await f.getByLabel('Optical gap (eV)').fill('5.0');
+	await f.getByLabel('Method').fill('UPS / IPES');
+	await f.getByRole('button', { name: 'Add measurement' }).click();
+	// exciton binding = (8.9 - (-0.4)) - 5.0 = 4.30 eV
+	await page.getByRole('cell', { name: '4.30' }).waitFor();
+	await page.getByTestId('typed-ip').fill('9.2');
+	await page.getByTestId('typed-ea').fill('-0.8');
+	await page.getByTestId('epsilon-override').fill('2.5');
+	await page.getByTestId('level-diagram').waitFor();
+	const download = page.waitForEvent('download');
+	await page.getByRole('button', { name: 'Download SVG' }).click();
+	assert((await download).suggestedFilename().endsWith('.svg'), 'diagram SVG not downloaded');
+	await shot(page, '04b-levels');
+});
+
 step('the molecule list filters as you type', async () => {
 	await page.goto(`${workspaceUrl}/molecules`);
 	await page.getByTestId('molecule-filter').fill('zzz-no-such');

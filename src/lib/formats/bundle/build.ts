@@ -11,7 +11,6 @@
 import JSZip from 'jszip';
 import { formulaHill } from '$lib/science/elements';
 import {
-	DEFAULT_NWCHEM_SETTINGS,
 	type DeckAtom,
 	type NwchemDeck,
 	type NwchemSettings,

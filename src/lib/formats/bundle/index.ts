@@ -37,3 +37,27 @@ export {
 } from './scripts';
 export { type ReadmeContext, bundleReadme } from './readme';
 export { type BundleFile, type BundleInput, type BundlePlan, buildBundle, planBundle, zipBundle } from './build';
+export {
+	DEFAULT_ZIP_LIMITS,
+	type InspectedEntry,
+	type ZipEntryBytes,
+	type ZipInspection,
+	type ZipLimits,
+	checkZipLimits,
+	inspectZip,
+	readZipEntries,
+	unsafeNameReason
+} from './inspect-zip';
+export { type ZipDirectoryEntry, readZipDirectory } from './zip-directory';
+export {
+	type IngestFileInput,
+	type IngestOptions,
+	type IngestProblem,
+	type IngestProblemCode,
+	type IngestResult,
+	type IngestUpload,
+	type IngestedFile,
+	type IngestedRerun,
+	type IngestedScanPoint,
+	ingestOutputs
+} from './ingest';

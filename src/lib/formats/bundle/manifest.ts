@@ -267,7 +267,12 @@ export function readManifest(json: unknown): BundleManifest {
 		tuning = {
 			alpha: num(t, 'alpha', 'tuning'),
 			beta: num(t, 'beta', 'tuning'),
-			gammasBohrInv: arr(t, 'gammasBohrInv', 'tuning').map((g, i) => num({ g }, 'g', `tuning.gammasBohrInv[${i}]`)),
+			gammasBohrInv: arr(t, 'gammasBohrInv', 'tuning').map((g, i) => {
+				if (typeof g !== 'number' || !Number.isFinite(g) || g <= 0) {
+					throw new ManifestError(`tuning.gammasBohrInv[${i}]`, `must be a number > 0 (bohr^-1), got ${JSON.stringify(g)}`);
+				}
+				return g;
+			}),
 			layout: oneOf(t, 'layout', 'tuning', ['per-state', 'combined'] as const)
 		};
 	}

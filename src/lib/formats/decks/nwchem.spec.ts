@@ -373,3 +373,38 @@ describe('writeNwchemScreenedJob', () => {
 		);
 	});
 });
+
+describe('deck file names (option fileNames)', () => {
+	it('default: named after the start name, as before', () => {
+		expect(writeNwchemTuningJob(tuning()).fileName).toBe('so2_g0p3000.nw');
+		expect(writeNwchemScreenedJob({ ...so2Job, gammaBohrInv: 0.3, epsilon: 3 }).fileName).toBe('so2_g0p3000_e3p0000.nw');
+	});
+
+	it("'state': named after the states, start names unchanged, run line follows the file name", () => {
+		const combined = writeNwchemTuningJob(tuning(), { fileNames: 'state' });
+		expect(combined.fileName).toBe('neutral-cation-anion.nw');
+		expect(codeLines(combined.text)).toContain('start so2_g0p3000');
+		expect(combined.text).toContain('#   Run: mpirun -np 2 nwchem neutral-cation-anion.nw > neutral-cation-anion.out');
+		const perState = writeNwchemTuningStateDecks(tuning(), { fileNames: 'state' });
+		expect(perState.map((d) => [d.fileName, d.jobName])).toEqual([
+			['neutral.nw', 'so2_g0p3000_neutral'],
+			['cation.nw', 'so2_g0p3000_cation'],
+			['anion.nw', 'so2_g0p3000_anion']
+		]);
+		const scan = writeNwchemTuningScan({ ...so2Job, gammasBohrInv: [0.2, 0.3] }, { layout: 'per-state', fileNames: 'state' });
+		expect(scan.map((d) => `${d.folder}/${d.fileName}`)).toEqual([
+			'g0p2000/neutral.nw',
+			'g0p2000/cation.nw',
+			'g0p2000/anion.nw',
+			'g0p3000/neutral.nw',
+			'g0p3000/cation.nw',
+			'g0p3000/anion.nw'
+		]);
+		expect(writeNwchemScreenedJob({ ...so2Job, gammaBohrInv: 0.3, epsilon: 3 }, { fileNames: 'state' }).fileName).toBe('neutral.nw');
+	});
+
+	it('refuses an unknown naming', () => {
+		expect(() => writeNwchemTuningJob(tuning(), { fileNames: 'gamma' as 'state' })).toThrow(DeckInputError);
+		expect(() => writeNwchemTuningJob(tuning(), { fileNames: 'gamma' as 'state' })).toThrow('fileNames: fileNames must be start or state, got "gamma"');
+	});
+});

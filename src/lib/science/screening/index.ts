@@ -23,3 +23,4 @@ export {
 } from './epsilon-sweep';
 export { rerunLevels, type RerunLevelsInput, type RerunLevels } from './rerun-levels';
 export { CAUTIONS } from './cautions';
+export { solidStateEstimate, type SolidStateEstimateInput, type SolidStateEstimate } from './solid-state-estimate';
