@@ -145,6 +145,14 @@ step('solid-state levels: screened parameters, Born estimate, sweep chart, measu
 	const download = page.waitForEvent('download');
 	await page.getByRole('button', { name: 'Download SVG' }).click();
 	assert((await download).suggestedFilename().endsWith('.svg'), 'diagram SVG not downloaded');
+	const zip = page.waitForEvent('download');
+	await page.getByTestId('bundle-form').getByRole('button', { name: /Download rerun bundle/ }).click();
+	assert((await zip).suggestedFilename().endsWith('.zip'), 'rerun bundle not downloaded');
+	await page.reload();
+	await page.getByRole('link', { name: /kappaline-.*\.zip/ }).first().waitFor();
+	await page.getByTestId('typed-ip').fill('9.2');
+	await page.getByTestId('typed-ea').fill('-0.8');
+	await page.getByTestId('epsilon-override').fill('2.5');
 	await shot(page, '04b-levels');
 });
 

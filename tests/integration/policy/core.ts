@@ -1,4 +1,7 @@
 import type { Need } from './types';
+import type { Db } from '../../../src/lib/server/db/create-db';
+import { createBundle } from '../../../src/lib/server/services/bundles';
+import { bundleRequest } from '../../../src/lib/schemas/bundle';
 
 /** Foundation routes: `${routeId} ${GET|POST|PATCH|DELETE|?/action}` -> the least role allowed. */
 export const policy: Record<string, Need> = {
@@ -33,6 +36,11 @@ export const policy: Record<string, Need> = {
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid] ?/update': 'editor',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid] ?/delete': 'editor',
 	'/(app)/w/[ws=uuid]/activity GET': 'viewer',
+	'/(app)/w/[ws=uuid]/bundles POST': 'editor',
+	'/(app)/w/[ws=uuid]/bundles/[id=uuid] GET': 'viewer',
+	'/api/v1/workspaces/[ws=uuid]/bundles GET': 'viewer',
+	'/api/v1/workspaces/[ws=uuid]/bundles POST': 'editor',
+	'/api/v1/workspaces/[ws=uuid]/bundles/[id=uuid] GET': 'viewer',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels GET': 'viewer',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/addMeasurement': 'editor',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/deleteMeasurement': 'editor',
@@ -59,3 +67,9 @@ export const policy: Record<string, Need> = {
 	'/api/v1/workspaces/[ws=uuid]/polymorphs/[id=uuid] PATCH': 'editor',
 	'/api/v1/workspaces/[ws=uuid]/polymorphs/[id=uuid] DELETE': 'editor'
 };
+
+/** Records that the foundation's id routes need besides the molecule and polymorph. */
+export async function seed(db: Db, fx: { ws: string; owner: { id: string }; molecule: { id: string } }): Promise<Record<string, string>> {
+	const { record } = await createBundle(db, { userId: fx.owner.id, workspaceId: fx.ws, role: 'owner' }, bundleRequest.parse({ moleculeId: fx.molecule.id, alpha: 0.2, tuningGammas: [0.3] }));
+	return { bundles: record.id };
+}

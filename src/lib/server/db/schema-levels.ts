@@ -20,6 +20,24 @@ export interface MeasurementTable {
 	created_by: string | null;
 }
 
+/** A rerun bundle handed out (the zip is rebuilt from `request` on download). */
+export interface BundleTable {
+	id: Generated<string>;
+	workspace_id: string;
+	molecule_id: string;
+	polymorph_id: string | null;
+	study_id: string | null;
+	kind: 'tuning' | 'screened' | 'tuning+screened';
+	request: ColumnType<unknown, string, string>;
+	file_name: string;
+	sha256: string;
+	size_bytes: number;
+	file_count: number;
+	created_by: string | null;
+	created_at: Timestamp;
+}
+
 export interface LevelsTables {
 	measurement: MeasurementTable;
+	bundle: BundleTable;
 }

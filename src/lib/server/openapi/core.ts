@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { listOf, moleculeOut, polymorphOut, workspaceSummary } from '$lib/schemas/api';
 import { moleculeInput, moleculePatch } from '$lib/schemas/molecule';
 import { polymorphInput, polymorphPatch } from '$lib/schemas/polymorph';
+import { bundleRequest } from '$lib/schemas/bundle';
 import { defineOperation, WS_ID_PARAMS, WS_PARAM } from './registry';
 
 const ifMatch = z.object({ 'if-match': z.string().meta({ description: 'the version you read, e.g. "3"' }) });
@@ -27,3 +28,8 @@ defineOperation({ method: 'patch', path: '/api/v1/workspaces/{ws}/polymorphs/{id
 defineOperation({ method: 'delete', path: '/api/v1/workspaces/{ws}/polymorphs/{id}', tag: 'Polymorphs', role: 'editor', summary: 'Delete a polymorph', params: WS_ID_PARAMS, response: { status: 204, description: 'deleted' } });
 
 defineOperation({ method: 'get', path: '/api/v1/openapi.json', tag: 'Reference', role: 'public', summary: 'This document (OpenAPI 3.1)', response: { status: 200, description: 'the OpenAPI document' } });
+
+// Rerun bundles (NWChem decks, cluster scripts, manifest.json with SHA-256 of every file).
+defineOperation({ method: 'get', path: '/api/v1/workspaces/{ws}/bundles', tag: 'Bundles', role: 'viewer', summary: 'List rerun bundles made so far (who, when, from what)', params: WS_PARAM, query: z.object({ moleculeId: z.uuid().optional(), polymorphId: z.uuid().optional() }), response: { status: 200, description: 'bundles', schema: z.object({ items: z.array(z.record(z.string(), z.unknown())), nextCursor: z.string().nullable() }) } });
+defineOperation({ method: 'post', path: '/api/v1/workspaces/{ws}/bundles', tag: 'Bundles', role: 'editor', summary: 'Build a rerun bundle (zip): tuning-scan decks per gamma and/or screened reruns per epsilon', description: 'Answers the zip; its record id is in the X-Kappaline-Bundle header. The deck writers refuse, with the reason, parameters NWChem would silently get wrong.', params: WS_PARAM, body: bundleRequest, response: { status: 201, description: 'the zip', contentType: 'application/zip', schema: z.string().meta({ format: 'binary' }) }, example: { moleculeId: '<molecule id>', alpha: 0.2, tuningGammas: [0.15, 0.2, 0.25, 0.3], screened: { gammaBohrInv: 0.22, epsilons: [3.2] }, basis: 'aug-cc-pvdz' } });
+defineOperation({ method: 'get', path: '/api/v1/workspaces/{ws}/bundles/{id}', tag: 'Bundles', role: 'viewer', summary: 'Download a recorded bundle again (rebuilt and checked against its SHA-256)', params: WS_ID_PARAMS, response: { status: 200, description: 'the zip', contentType: 'application/zip', schema: z.string().meta({ format: 'binary' }) } });

@@ -7,6 +7,7 @@ import { formFailure } from '$lib/server/http';
 import { measurementInput } from '$lib/schemas/measurement';
 import { levelsContext } from '$lib/server/services/levels';
 import { addMeasurement, deleteMeasurement } from '$lib/server/services/measurements';
+import { listBundles } from '$lib/server/services/bundles';
 import { getPolymorph } from '$lib/server/services/polymorphs';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -20,7 +21,8 @@ export const load: PageServerLoad = async (event) => {
 		throw e;
 	}
 	const context = await levelsContext(db(), event.params.ws, polymorph.id, polymorph.moleculeId);
-	return { polymorph, ...context };
+	const bundles = await listBundles(db(), event.params.ws, { polymorphId: polymorph.id });
+	return { polymorph, ...context, bundles };
 };
 
 export const actions: Actions = {
