@@ -37,7 +37,24 @@ export interface BundleTable {
 	created_at: Timestamp;
 }
 
+/** A screened rerun's frontier orbitals (hartree), typed or read from an engine output. */
+export interface RerunResultTable {
+	id: Generated<string>;
+	workspace_id: string;
+	polymorph_id: string;
+	epsilon: number;
+	alpha: number;
+	gamma_bohr_inv: number;
+	homo_hartree: number;
+	lumo_hartree: number | null;
+	source: 'typed' | 'engine-output';
+	file_name: string | null;
+	created_by: string | null;
+	created_at: Timestamp;
+}
+
 export interface LevelsTables {
 	measurement: MeasurementTable;
 	bundle: BundleTable;
+	rerun_result: RerunResultTable;
 }

@@ -8,8 +8,21 @@ import { measurementInput } from '$lib/schemas/measurement';
 import { levelsContext } from '$lib/server/services/levels';
 import { addMeasurement, deleteMeasurement } from '$lib/server/services/measurements';
 import { listBundles } from '$lib/server/services/bundles';
+import { addReruns, deleteRerun, ingestReruns, listReruns } from '$lib/server/services/reruns';
+import { HARTREE_EV } from '$lib/science/units';
+import { ValidationError } from '$lib/server/errors';
 import { getPolymorph } from '$lib/server/services/polymorphs';
 import type { Actions, PageServerLoad } from './$types';
+
+const num = (name: string) => z.coerce.number({ error: `${name} must be a number` });
+const rerunForm = z.object({
+	epsilon: num('epsilon').min(1, 'epsilon must be >= 1'),
+	alpha: num('alpha').min(0).max(1),
+	gammaBohrInv: num('gamma').gt(0, 'gamma must be > 0'),
+	homo: num('eps_HOMO'),
+	lumo: z.preprocess((v) => (v === '' || v == null ? undefined : v), num('eps_LUMO').optional()),
+	unit: z.enum(['eV', 'hartree'])
+});
 
 export const load: PageServerLoad = async (event) => {
 	await requireRole(event, event.params.ws, 'viewer');
@@ -21,8 +34,8 @@ export const load: PageServerLoad = async (event) => {
 		throw e;
 	}
 	const context = await levelsContext(db(), event.params.ws, polymorph.id, polymorph.moleculeId);
-	const bundles = await listBundles(db(), event.params.ws, { polymorphId: polymorph.id });
-	return { polymorph, ...context, bundles };
+	const [bundles, reruns] = await Promise.all([listBundles(db(), event.params.ws, { polymorphId: polymorph.id }), listReruns(db(), event.params.ws, polymorph.id)]);
+	return { polymorph, ...context, bundles, reruns };
 };
 
 export const actions: Actions = {
@@ -35,6 +48,41 @@ export const actions: Actions = {
 			return formFailure(e, values);
 		}
 		return { saved: 'measurement' };
+	},
+	addRerun: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'editor');
+		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
+		try {
+			const r = rerunForm.parse(values);
+			const toHa = (x: number) => (r.unit === 'eV' ? x / HARTREE_EV : x);
+			await addReruns(db(), actor, event.params.id, [{ epsilon: r.epsilon, alpha: r.alpha, gammaBohrInv: r.gammaBohrInv, homoHartree: toHa(r.homo), lumoHartree: r.lumo === undefined ? null : toHa(r.lumo) }], 'typed');
+		} catch (e) {
+			return formFailure(e, values);
+		}
+		return { saved: 'rerun' };
+	},
+	uploadOutputs: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'editor');
+		const form = await event.request.formData();
+		const file = form.get('outputs');
+		try {
+			if (!(file instanceof File) || file.size === 0) throw new ValidationError('choose an NWChem output (.out) or a bundle zip with the outputs beside the decks', 'outputs');
+			if (file.size > 50_000_000) throw new ValidationError(`the upload is ${(file.size / 1e6).toFixed(1)} MB, over the limit of 50 MB`, 'outputs');
+			const r = await ingestReruns(db(), actor, event.params.id, file.name, new Uint8Array(await file.arrayBuffer()));
+			return { saved: 'outputs', stored: r.stored.length, problems: r.problems.map((p) => `${p.file}: ${p.message}`) };
+		} catch (e) {
+			return formFailure(e, {});
+		}
+	},
+	deleteRerun: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'editor');
+		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
+		try {
+			await deleteRerun(db(), actor, event.params.id, z.uuid().parse(values.id));
+		} catch (e) {
+			return formFailure(e, values);
+		}
+		return { saved: 'deleted' };
 	},
 	deleteMeasurement: async (event) => {
 		const actor = await requireRole(event, event.params.ws, 'editor');
