@@ -1,7 +1,8 @@
 // End-to-end steps for polymorphs and dielectric screening: import a CIF (a broken one first), upload a
 // tensor, add a refractive index and a Clausius–Mossotti estimate, pick the epsilon in use, and compare two
-// polymorphs. Runs in its own browser context as a new user. The tensor, refractive index and polarizability
-// are an invented scenario; the CIFs are published structures (see src/lib/formats/fixtures/README.md).
+// polymorphs. Runs in its own browser context as a new user. The molecule and its first polymorph are a
+// published structure (COD 1501936, Org. Lett. 13 (2011) 720; see src/lib/formats/fixtures/README.md); the
+// second polymorph's cell, the tensor, refractive index and polarizability are an invented scenario.
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
@@ -9,9 +10,8 @@ import { assert, newContext, shot, step } from './harness';
 
 const FIXTURES = join(process.cwd(), 'src', 'lib', 'formats', 'fixtures');
 const TRICLINIC = readFileSync(join(FIXTURES, 'cod-1501936.cif'));
-const MONOCLINIC = readFileSync(join(FIXTURES, 'cod-2000724.cif'));
+const MOLECULE_XYZ = readFileSync(join(FIXTURES, 'cod-1501936-molecule.xyz'));
 const TENSOR_CSV = '# invented linear-response tensor (electronic)\n,x,y,z\nx,3.10,0.05,0.00\ny,0.05,2.80,0.12\nz,0.00,0.12,4.20\n';
-const XYZ = '3\nwater, invented placeholder geometry\nO 0.000 0.000 0.117\nH 0.000 0.757 -0.467\nH 0.000 -0.757 -0.467\n';
 
 export function registerDielectricSteps(consoleErrors: string[]): void {
 	const run = Date.now().toString(36);
@@ -41,7 +41,7 @@ export function registerDielectricSteps(consoleErrors: string[]): void {
 		const ws = new URL(page.url()).pathname.replace(/\/molecules.*/, '');
 		await page.goto(`${ws}/molecules/new`);
 		await page.getByLabel('Name').fill('Polymorph study');
-		await page.getByTestId('xyz-file').setInputFiles({ name: 'm.xyz', mimeType: 'text/plain', buffer: Buffer.from(XYZ) });
+		await page.getByTestId('xyz-file').setInputFiles({ name: 'cod-1501936-molecule.xyz', mimeType: 'text/plain', buffer: MOLECULE_XYZ });
 		await page.getByRole('button', { name: 'Create molecule' }).click();
 		await page.waitForURL(/\/molecules\/[0-9a-f-]{36}$/);
 		moleculeUrl = new URL(page.url()).pathname;
@@ -67,6 +67,9 @@ export function registerDielectricSteps(consoleErrors: string[]): void {
 		firstPolymorphUrl = new URL(page.url()).pathname;
 		const vol = await page.getByTestId('cell-volume').textContent();
 		assert(vol?.startsWith('860.5'), `cell volume of COD 1501936 shown as ${vol} (printed 860.57(5) Å³)`);
+		const density = await page.getByTestId('density').textContent();
+		assert(density?.startsWith('1.32'), `density shown as ${density} (printed 1.321 g/cm³)`);
+		assert((await page.getByTestId('cif-note').count()) === 0, 'a matching CIF should raise no notes');
 		await page.locator('[data-testid="unit-cell-viewer"][data-status="ready"]').waitFor({ timeout: 20_000 });
 		await shot(page, '21-polymorph-from-cif');
 	});
@@ -129,13 +132,18 @@ export function registerDielectricSteps(consoleErrors: string[]): void {
 	});
 
 	step('dielectric: a second polymorph; the molecule compares both', async () => {
+		// An invented thin-film cell for the same molecule, typed in by hand.
 		await page.goto(moleculeUrl);
-		await page.getByText('Import a polymorph from CIF').click();
-		await page.getByTestId('cif-file').setInputFiles({ name: 'cod-2000724.cif', mimeType: 'chemical/x-cif', buffer: MONOCLINIC });
-		await page.getByLabel('Label (optional)').fill('form II (monoclinic)');
-		await page.getByRole('button', { name: 'Import CIF' }).click();
+		await page.getByText('Add a polymorph').click();
+		const f = page.locator('form[action="?/addPolymorph"]');
+		await f.getByLabel('Label').fill('form II (invented thin-film cell)');
+		await f.getByLabel('Space group').fill('P-1');
+		await f.getByLabel('Z (molecules per cell)').fill('2');
+		for (const [label, value] of [['a (Å)', '8.05'], ['b (Å)', '8.52'], ['c (Å)', '13.40'], ['α (°)', '81.0'], ['β (°)', '83.5'], ['γ (°)', '78.6']])
+			await f.getByLabel(label, { exact: true }).fill(value);
+		await f.getByRole('button', { name: 'Add polymorph' }).click();
 		await page.waitForURL(/\/polymorphs\/[0-9a-f-]{36}$/);
-		assert(new URL(page.url()).pathname !== firstPolymorphUrl, 'second import should make a new polymorph');
+		assert(new URL(page.url()).pathname !== firstPolymorphUrl, 'the second polymorph should be a new record');
 		await addEntry('Scalar', async () => page.getByLabel('ε (scalar)').fill('3.05'), 'Add scalar entry');
 		const form = page.getByTestId('choose-form');
 		await form.getByLabel('Reason').fill('only value so far');

@@ -189,15 +189,26 @@ export async function replaceCellFromCif(db: Executor, actor: Actor, polymorphId
 	});
 }
 
-export async function getStoredCif(db: Executor, workspaceId: string, polymorphId: string): Promise<(StoredCif & { text: string }) | null> {
+export async function getStoredCif(db: Executor, workspaceId: string, polymorphId: string): Promise<(StoredCif & { text: string; notes: string[] }) | null> {
 	const r = await db
 		.selectFrom('polymorph_cif as c')
+		.innerJoin('polymorph as p', 'p.id', 'c.polymorph_id')
+		.innerJoin('molecule as m', 'm.id', 'p.molecule_id')
 		.leftJoin('User as u', 'u.id', 'c.uploaded_by')
 		.selectAll('c')
-		.select(['u.email', 'u.name'])
+		.select(['u.email', 'u.name', 'm.formula'])
 		.where('c.workspace_id', '=', workspaceId)
 		.where('c.polymorph_id', '=', polymorphId)
 		.executeTakeFirst();
 	if (!r) return null;
-	return { fileName: r.file_name, blockName: r.block_name, atomSiteCount: r.atom_site_count, uploadedAt: r.uploaded_at, uploadedBy: r.name || r.email, text: r.cif_text };
+	// Findings of the reader (printed values that disagree, skipped sites) and a formula mismatch, re-read
+	// from the stored file so they stay visible after the import.
+	let notes: string[] = [];
+	try {
+		const parsed = polymorphFromCif(r.cif_text);
+		notes = [...parsed.warnings, ...formulaWarning(parsed, r.formula)];
+	} catch (e) {
+		notes = [`the stored file no longer reads: ${(e as Error).message}`];
+	}
+	return { fileName: r.file_name, blockName: r.block_name, atomSiteCount: r.atom_site_count, uploadedAt: r.uploaded_at, uploadedBy: r.name || r.email, text: r.cif_text, notes };
 }

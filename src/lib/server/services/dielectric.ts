@@ -21,7 +21,7 @@ import { getPolymorph } from './polymorphs';
 /** Shown wherever a static constant is entered or chosen. */
 export const STATIC_EPSILON_NOTE =
 	'This is a static (low-frequency) constant: it includes the ions’ and molecules’ vibrational response. The ' +
-	'screened range-separated hybrid needs the electronic (high-frequency, clamped-ion) constant eps_inf, which ' +
+	'screened range-separated hybrid needs the electronic (high-frequency, clamped-ion) constant ε∞, which ' +
 	'screens a charge on the time scale of electronic polarization. Engines print both, under names that are easy ' +
 	'to confuse (e.g. "epsilon infinity", "ion-clamped", "without local fields" versus "static", "including ionic ' +
 	'contributions"). For molecular crystals the two are often close, but not always (polar groups, hydrogen bonds).';
