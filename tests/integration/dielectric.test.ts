@@ -68,7 +68,7 @@ describe('CIF import', () => {
 		const e = await refused(() => importPolymorphFromCif(db, editor, { moleculeId: fx.molecule.id, label: '', fileName: 'broken.cif', cif: broken, notes: '' }));
 		// The loop_ opening the atom-site loop is the line before _atom_site_label.
 		expect(e.line).toBe(TRICLINIC.split('\n').indexOf('_atom_site_label'));
-		expect(e.message).toMatch(/^broken\.cif: line \d+: loop_ has 11 tags but \d+ values .*not a multiple of 11$/);
+		expect(e.message).toMatch(/^line \d+: loop_ has 11 tags but \d+ values .*not a multiple of 11 \(in broken\.cif\)$/);
 	});
 
 	it('a cell angle of 0 or 200 degrees is refused, and nothing is stored', async () => {

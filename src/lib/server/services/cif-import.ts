@@ -29,7 +29,7 @@ function readCif(text: string, fileName: string): { parsed: CifPolymorph; fields
 	try {
 		parsed = polymorphFromCif(text);
 	} catch (e) {
-		if (e instanceof CifParseError) throw new ValidationError(`${fileName || 'CIF'}: ${e.message}`, 'cif', e.line || undefined);
+		if (e instanceof CifParseError) throw new ValidationError(`${e.message}${fileName ? ` (in ${fileName})` : ''}`, 'cif', e.line || undefined);
 		throw e;
 	}
 	if (parsed.z === undefined) {
