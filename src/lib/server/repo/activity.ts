@@ -5,7 +5,8 @@ export interface ActivityInput {
 	actorId: string | null;
 	entityType: 'molecule' | 'polymorph' | 'workspace' | 'membership' | 'invitation';
 	entityId: string;
-	action: 'create' | 'update' | 'delete' | 'invite' | 'join' | 'role' | 'remove' | 'rename';
+	action: 'create' | 'update' | 'delete' | 'invite' | 'join' | 'role' | 'remove' | 'rename'
+		| 'cif_import' | 'cif_replace' | 'dielectric_add' | 'dielectric_delete' | 'choose_epsilon';
 	summary: string;
 	before?: unknown;
 	after?: unknown;

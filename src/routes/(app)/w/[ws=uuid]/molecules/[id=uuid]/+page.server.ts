@@ -9,6 +9,10 @@ import { moleculeInput } from '$lib/schemas/molecule';
 import { polymorphInput } from '$lib/schemas/polymorph';
 import { deleteMolecule, getMolecule, updateMolecule } from '$lib/server/services/molecules';
 import { createPolymorph, listPolymorphs } from '$lib/server/services/polymorphs';
+import { readFormWithFile } from '$lib/server/dielectric-forms';
+import { cifImportInput, MAX_CIF_BYTES } from '$lib/schemas/dielectric';
+import { importPolymorphFromCif } from '$lib/server/services/cif-import';
+import { epsilonInUseByPolymorph } from '$lib/server/services/dielectric';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -22,7 +26,8 @@ export const load: PageServerLoad = async (event) => {
 	}
 	const polymorphs = await listPolymorphs(db(), event.params.ws, { moleculeId: molecule.id });
 	const activity = await listActivity(db(), event.params.ws, { entityIds: [molecule.id, ...polymorphs.map((p) => p.id)], limit: 20 });
-	return { molecule, polymorphs, activity };
+	const epsilonInUse = await epsilonInUseByPolymorph(db(), event.params.ws, polymorphs.map((p) => p.id));
+	return { molecule, polymorphs, activity, epsilonInUse };
 };
 
 export const actions: Actions = {
@@ -55,6 +60,19 @@ export const actions: Actions = {
 			id = (await createPolymorph(db(), actor, event.params.id, polymorphInput.parse(values))).id;
 		} catch (e) {
 			return formFailure(e, values);
+		}
+		redirect(303, `/w/${actor.workspaceId}/polymorphs/${id}`);
+	},
+	importCif: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'editor');
+		let values: Record<string, string> = {};
+		let id: string;
+		try {
+			values = await readFormWithFile(event.request, 'cifFile', 'cif', MAX_CIF_BYTES);
+			id = (await importPolymorphFromCif(db(), actor, cifImportInput.parse({ ...values, moleculeId: event.params.id }))).polymorph.id;
+		} catch (e) {
+			const { cif: _cif, ...rest } = values;
+			return formFailure(e, { ...rest, _section: 'cif' });
 		}
 		redirect(303, `/w/${actor.workspaceId}/polymorphs/${id}`);
 	}
