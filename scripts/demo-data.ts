@@ -70,3 +70,10 @@ export function demoMolecules(): DemoMolecule[] {
 		])
 	];
 }
+
+/** Demo electronic dielectric constants per polymorph label: invented, plausible for acene crystals (2.5-4.5, common practice). */
+export const DEMO_EPSILON: Record<string, number> = {
+	'bulk (demo)': 3.3,
+	'thin film on oxide (demo)': 3.0,
+	'thin-film phase (demo)': 3.1
+};

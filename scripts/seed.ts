@@ -5,7 +5,9 @@ import { createDb, type Db } from '../src/lib/server/db/create-db';
 import { signUp } from '../src/lib/server/services/accounts';
 import { createMolecule } from '../src/lib/server/services/molecules';
 import { createPolymorph } from '../src/lib/server/services/polymorphs';
-import { demoMolecules } from './demo-data';
+import { addDielectricEntry, chooseEpsilon } from '../src/lib/server/services/dielectric';
+import { dielectricEntryInput } from '../src/lib/schemas/dielectric';
+import { DEMO_EPSILON, demoMolecules } from './demo-data';
 
 export async function seedDemo(db: Db, creds: { email: string; password: string; viewerEmail: string; viewerPassword: string }): Promise<string> {
 	const owner = await signUp(db, { email: creds.email, password: creds.password, name: 'Demo Researcher' });
@@ -19,7 +21,15 @@ export async function seedDemo(db: Db, creds: { email: string; password: string;
 	const actor = { userId: owner.userId, workspaceId: wsId, role: 'owner' as const };
 	for (const d of demoMolecules()) {
 		const m = await createMolecule(db, actor, d.molecule);
-		for (const p of d.polymorphs) await createPolymorph(db, actor, m.id, p);
+		for (const p of d.polymorphs) {
+			const poly = await createPolymorph(db, actor, m.id, p);
+			const eps = DEMO_EPSILON[p.label];
+			if (eps === undefined) continue;
+			const scalar = await addDielectricEntry(db, actor, poly.id, dielectricEntryInput.parse({ kind: 'scalar', frequency: 'electronic', epsilon: eps, epsilonUncertainty: 0.2, method: 'demo value (invented)', note: 'Invented for the demo workspace.' }));
+			if (p.label === 'bulk (demo)')
+				await addDielectricEntry(db, actor, poly.id, dielectricEntryInput.parse({ kind: 'tensor', frequency: 'electronic', tensor: [[eps - 0.5, 0.05, 0], [0.05, eps - 0.2, 0.1], [0, 0.1, eps + 0.7]], method: 'invented linear-response tensor (demo)' }));
+			await chooseEpsilon(db, actor, poly.id, { entryId: scalar.id, reason: 'demo: electronic constant used for all screened reruns', version: undefined });
+		}
 	}
 	return wsId;
 }

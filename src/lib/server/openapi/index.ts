@@ -1,6 +1,7 @@
 // Every feature's API operations, registered once; add a file per feature and import it here.
 import pkg from '../../../../package.json' with { type: 'json' };
 import './core';
+import './dielectric';
 import { allOperations, buildDocument } from './registry';
 
 let cached: ReturnType<typeof buildDocument> | undefined;

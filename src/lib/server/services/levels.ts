@@ -1,4 +1,5 @@
 import type { Executor } from '../db';
+import { getEpsilonInUse } from './dielectric';
 import { listMeasurements, type Measurement } from './measurements';
 
 /** The gas-phase tuned parameters the solid-state estimate starts from (the molecule's current study). */
@@ -30,6 +31,12 @@ export interface LevelsContext {
  * from the tuning and dielectric records; until a molecule has a current study (or a polymorph an
  * epsilon in use) they are null and the page says what is missing.
  */
+const KIND_LABEL: Record<string, string> = { scalar: 'scalar', tensor: 'tensor', refractive_index: 'n²', clausius_mossotti: 'Clausius–Mossotti' };
+
 export async function levelsContext(db: Executor, workspaceId: string, polymorphId: string, _moleculeId: string): Promise<LevelsContext> {
-	return { tuned: null, epsilonInUse: null, measurements: await listMeasurements(db, workspaceId, polymorphId) };
+	const [eps, measurements] = await Promise.all([getEpsilonInUse(db, workspaceId, polymorphId), listMeasurements(db, workspaceId, polymorphId)]);
+	const epsilonInUse = eps
+		? { entryId: eps.entryId, epsilon: eps.entry.epsilon, uncertainty: eps.entry.epsilonUncertainty, label: `${KIND_LABEL[eps.entry.kind] ?? eps.entry.kind}, ${eps.entry.frequency}${eps.entry.source.method ? ` — ${eps.entry.source.method}` : ''}` }
+		: null;
+	return { tuned: null, epsilonInUse, measurements };
 }
