@@ -28,3 +28,4 @@ export {
 	type ZeroCrossings
 } from './optimal-gamma';
 export { suggestRefinedGrid, type SuggestRefinedGridOptions } from './suggest-refined-grid';
+export { basisHasDiffuseFunctions } from './basis-has-diffuse-functions';

@@ -18,6 +18,7 @@
  * When a diagnostic of severity 'error' is present, `optimum` and `bestGridPoint` are null.
  */
 import { hartreeToEv } from '../units';
+import { basisHasDiffuseFunctions } from './basis-has-diffuse-functions';
 import { brentMinimum } from './brent-minimum';
 import type { CubicInterpolant } from './cubic-hermite-interpolant';
 import { interpolantZeros } from './interpolant-zeros';
@@ -57,6 +58,12 @@ export interface OptimalGammaOptions {
 	outlierRelativeFactor?: number;
 	/** Tolerance of the minimiser and root finder, bohr^-1 (default 1e-10). */
 	toleranceBohrInv?: number;
+	/**
+	 * Name of the basis set the scan was run with (e.g. 'aug-cc-pVDZ'). When given and it has no diffuse
+	 * functions by common naming (see basisHasDiffuseFunctions) while the objective uses an anion term,
+	 * a warning is added.
+	 */
+	basisSet?: string | null;
 }
 
 /** The levels and J terms at gamma*, in eV (interpolated; null when not available there). */
@@ -248,6 +255,15 @@ export function optimalGamma(points: readonly ScanPoint[], options: OptimalGamma
 			usedGammasBohrInv: usable.map((r) => r.terms.gammaBohrInv),
 			diagnostics
 		};
+
+	// 3b. An anion term in the objective computed without diffuse functions (common practice: anions need them).
+	if (eaKey !== null && basisHasDiffuseFunctions(options.basisSet) === false)
+		diagnostics.push({
+			code: 'anion-term-without-diffuse-basis',
+			severity: 'warning',
+			message: `The '${objective}' objective uses an anion term (${TERM_NAMES[eaKey]}), but the basis set '${String(options.basisSet).trim()}' has no diffuse functions by its name: the extra electron is squeezed into too compact functions, so EA and the anion's orbital energy are unreliable (common practice).`,
+			action: 'Rerun the anion (and, for consistency, the whole scan) with a diffuse basis (aug-cc-pVDZ, 6-31+G*, def2-SVPD), or use the ip-only objective.'
+		});
 
 	// 4. Points that break smoothness (likely failed SCF).
 	for (const f of SCAN_ENERGY_FIELDS) {
