@@ -29,3 +29,12 @@ export {
 } from './optimal-gamma';
 export { suggestRefinedGrid, type SuggestRefinedGridOptions } from './suggest-refined-grid';
 export { basisHasDiffuseFunctions } from './basis-has-diffuse-functions';
+export {
+	TUNING_ANALYSIS_VERSION,
+	canonicalTuningInput,
+	inputFingerprintHex,
+	tuningAnalysis,
+	type TuningAnalysis,
+	type TuningAnalysisOptions,
+	type TuningChartPoint
+} from './tuning-analysis';

@@ -3,9 +3,9 @@ import type { Executor } from '../db';
 export interface ActivityInput {
 	workspaceId: string;
 	actorId: string | null;
-	entityType: 'molecule' | 'polymorph' | 'workspace' | 'membership' | 'invitation';
+	entityType: 'molecule' | 'polymorph' | 'workspace' | 'membership' | 'invitation' | 'tuning_study' | 'scan_point';
 	entityId: string;
-	action: 'create' | 'update' | 'delete' | 'invite' | 'join' | 'role' | 'remove' | 'rename';
+	action: 'create' | 'update' | 'delete' | 'invite' | 'join' | 'role' | 'remove' | 'rename' | 'import' | 'exclude' | 'include' | 'mark-current' | 'save-result';
 	summary: string;
 	before?: unknown;
 	after?: unknown;

@@ -1,0 +1,94 @@
+/**
+ * The whole gas-phase tuning analysis of one scan, as stored with a study and shown on its page: gamma*
+ * and its diagnostics (optimalGamma), the J terms per point for the chart, the suggested refined grid,
+ * and what is needed to reproduce it later: the analysis version and a hash of the exact input.
+ * Pure: the browser recomputes it on every change; the server recomputes it before storing.
+ */
+import { optimalGamma, type OptimalGammaResult } from './optimal-gamma';
+import { suggestRefinedGrid } from './suggest-refined-grid';
+import { tuningTerms } from './tuning-terms';
+import { SCAN_ENERGY_FIELDS, type ScanPoint, type TuningObjective } from './types';
+
+/**
+ * Version of the analysis (interpolant, minimiser, diagnostics and their defaults). Bump it whenever a
+ * change can move gamma* or change a diagnostic, so stored results say which rules made them.
+ */
+export const TUNING_ANALYSIS_VERSION = 'tuning-analysis/1';
+
+export interface TuningAnalysisOptions {
+	objective?: TuningObjective;
+	/** Basis set of the scan (for the diffuse-function check). */
+	basisSet?: string | null;
+}
+
+/** One point's terms in eV (null where an energy is missing), in input order. */
+export interface TuningChartPoint {
+	gammaBohrInv: number;
+	excluded: boolean;
+	jIpEv: number | null;
+	jEaEv: number | null;
+	jEaLumoEv: number | null;
+}
+
+export interface TuningAnalysis {
+	analysisVersion: string;
+	/** 64-bit fingerprint (hex) of the canonical input: points (with exclusions), objective, basis. */
+	inputHash: string;
+	input: { points: ScanPoint[]; objective: TuningObjective; basisSet: string | null };
+	result: OptimalGammaResult;
+	chart: TuningChartPoint[];
+	/** A finer gamma grid around gamma* (empty when there is no optimum). */
+	refinedGridBohrInv: number[];
+}
+
+/** The input in a fixed key order with exact numbers, so equal inputs give equal text. */
+export function canonicalTuningInput(points: readonly ScanPoint[], objective: TuningObjective, basisSet: string | null): string {
+	const rows = points.map((p) => [p.gammaBohrInv, ...SCAN_ENERGY_FIELDS.map((f) => p[f] ?? null), p.excluded === true]);
+	return JSON.stringify({ v: TUNING_ANALYSIS_VERSION, objective, basisSet, points: rows });
+}
+
+/**
+ * A 64-bit fingerprint (hex) of the text: two 32-bit multiply-xor lanes with a final avalanche (the
+ * public-domain "cyrb53" construction, kept to 2 x 32 bits). Not cryptographic: it identifies an input.
+ */
+export function inputFingerprintHex(text: string): string {
+	let h1 = 0xdeadbeef;
+	let h2 = 0x41c6ce57;
+	for (let i = 0; i < text.length; i++) {
+		const ch = text.charCodeAt(i);
+		h1 = Math.imul(h1 ^ ch, 2654435761);
+		h2 = Math.imul(h2 ^ ch, 1597334677);
+	}
+	h1 = Math.imul(h1 ^ (h1 >>> 16), 2246822507) ^ Math.imul(h2 ^ (h2 >>> 13), 3266489909);
+	h2 = Math.imul(h2 ^ (h2 >>> 16), 2246822507) ^ Math.imul(h1 ^ (h1 >>> 13), 3266489909);
+	return (h2 >>> 0).toString(16).padStart(8, '0') + (h1 >>> 0).toString(16).padStart(8, '0');
+}
+
+const HARTREE_TO_EV = 27.211386245988; // CODATA 2018
+
+export function tuningAnalysis(points: readonly ScanPoint[], options: TuningAnalysisOptions = {}): TuningAnalysis {
+	const basisSet = options.basisSet ?? null;
+	const result = optimalGamma(points, { objective: options.objective, basisSet });
+	const ev = (v: number | null) => (v === null ? null : v * HARTREE_TO_EV);
+	const chart = tuningTerms(points).map((t) => ({
+		gammaBohrInv: t.gammaBohrInv,
+		excluded: t.excluded,
+		jIpEv: ev(t.jIpHartree),
+		jEaEv: ev(t.jEaHartree),
+		jEaLumoEv: ev(t.jEaLumoHartree)
+	}));
+	const refinedGridBohrInv = result.optimum ? suggestRefinedGrid(result, points) : [];
+	const input = {
+		points: points.map((p) => ({ ...p })),
+		objective: result.objective,
+		basisSet
+	};
+	return {
+		analysisVersion: TUNING_ANALYSIS_VERSION,
+		inputHash: inputFingerprintHex(canonicalTuningInput(points, result.objective, basisSet)),
+		input,
+		result,
+		chart,
+		refinedGridBohrInv
+	};
+}
