@@ -4,7 +4,9 @@
  * and what is needed to reproduce it later: the analysis version and a hash of the exact input.
  * Pure: the browser recomputes it on every change; the server recomputes it before storing.
  */
+import { objectiveNeeds, objectiveValue } from './objective-value';
 import { optimalGamma, type OptimalGammaResult } from './optimal-gamma';
+import { pchipInterpolant } from './pchip-interpolant';
 import { suggestRefinedGrid } from './suggest-refined-grid';
 import { tuningTerms } from './tuning-terms';
 import { SCAN_ENERGY_FIELDS, type ScanPoint, type TuningObjective } from './types';
@@ -37,8 +39,45 @@ export interface TuningAnalysis {
 	input: { points: ScanPoint[]; objective: TuningObjective; basisSet: string | null };
 	result: OptimalGammaResult;
 	chart: TuningChartPoint[];
+	/**
+	 * The interpolated J terms and objective on an even grid over the used points (for the chart); the
+	 * same PCHIP through the same points as the minimiser used. Empty without an optimum.
+	 */
+	curves: { gammaBohrInv: number[]; jIpEv: number[]; eaTermEv: (number | null)[]; objective: number[] };
 	/** A finer gamma grid around gamma* (empty when there is no optimum). */
 	refinedGridBohrInv: number[];
+}
+
+const CURVE_SAMPLES = 161;
+
+function sampleCurves(chart: TuningChartPoint[], result: OptimalGammaResult): TuningAnalysis['curves'] {
+	const empty = { gammaBohrInv: [], jIpEv: [], eaTermEv: [], objective: [] };
+	if (!result.optimum) return empty;
+	const ea = objectiveNeeds(result.objective).ea;
+	const eaOf = (c: TuningChartPoint) => (ea === 'jEaLumo' ? c.jEaLumoEv : c.jEaEv);
+	const used = new Set(result.usedGammasBohrInv);
+	const rows: TuningChartPoint[] = [];
+	for (const c of [...chart].sort((a, b) => a.gammaBohrInv - b.gammaBohrInv))
+		if (!c.excluded && used.has(c.gammaBohrInv) && !rows.some((r) => r.gammaBohrInv === c.gammaBohrInv)) rows.push(c);
+	if (rows.length < 2) return empty;
+	const xs = rows.map((r) => r.gammaBohrInv);
+	const ip = pchipInterpolant(xs, rows.map((r) => r.jIpEv as number));
+	const eaRows = ea === null ? [] : rows.filter((r) => eaOf(r) !== null);
+	const eaF = eaRows.length >= 2 ? pchipInterpolant(eaRows.map((r) => r.gammaBohrInv), eaRows.map((r) => eaOf(r) as number)) : null;
+	const out: TuningAnalysis['curves'] = { gammaBohrInv: [], jIpEv: [], eaTermEv: [], objective: [] };
+	const lo = xs[0];
+	const hi = xs[xs.length - 1];
+	for (let i = 0; i < CURVE_SAMPLES; i++) {
+		const g = i === CURVE_SAMPLES - 1 ? hi : lo + ((hi - lo) * i) / (CURVE_SAMPLES - 1);
+		const j = ip.value(g);
+		const e = eaF && g >= eaF.minX && g <= eaF.maxX ? eaF.value(g) : null;
+		const terms = ea === 'jEaLumo' ? { jIpEv: j, jEaLumoEv: e } : { jIpEv: j, jEaEv: e };
+		out.gammaBohrInv.push(g);
+		out.jIpEv.push(j);
+		out.eaTermEv.push(e);
+		out.objective.push(objectiveValue(terms, { objective: result.objective }) ?? NaN);
+	}
+	return out;
 }
 
 /** The input in a fixed key order with exact numbers, so equal inputs give equal text. */
@@ -89,6 +128,7 @@ export function tuningAnalysis(points: readonly ScanPoint[], options: TuningAnal
 		input,
 		result,
 		chart,
+		curves: sampleCurves(chart, result),
 		refinedGridBohrInv
 	};
 }

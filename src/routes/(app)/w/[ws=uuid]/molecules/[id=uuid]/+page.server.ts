@@ -9,6 +9,7 @@ import { moleculeInput } from '$lib/schemas/molecule';
 import { polymorphInput } from '$lib/schemas/polymorph';
 import { deleteMolecule, getMolecule, updateMolecule } from '$lib/server/services/molecules';
 import { createPolymorph, listPolymorphs } from '$lib/server/services/polymorphs';
+import { listStudies } from '$lib/server/services/tuning';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -21,8 +22,9 @@ export const load: PageServerLoad = async (event) => {
 		throw e;
 	}
 	const polymorphs = await listPolymorphs(db(), event.params.ws, { moleculeId: molecule.id });
+	const tuningStudies = await listStudies(db(), event.params.ws, { moleculeId: molecule.id });
 	const activity = await listActivity(db(), event.params.ws, { entityIds: [molecule.id, ...polymorphs.map((p) => p.id)], limit: 20 });
-	return { molecule, polymorphs, activity };
+	return { molecule, polymorphs, activity, tuningStudies };
 };
 
 export const actions: Actions = {
