@@ -2,6 +2,7 @@
 // invite a viewer, and check that the viewer sees read-only pages. Screenshots go to test-results/e2e.
 import type { Page } from 'playwright-core';
 import { assert, firstLink, newContext, runSteps, shot, step, waitForMail } from './harness';
+import { registerTuningSteps } from './steps-tuning';
 
 const run = Date.now().toString(36);
 const alice = { email: `alice-${run}@example.test`, password: 'correct-horse-battery', name: 'Alice Lindqvist' };
@@ -156,6 +157,8 @@ step('the invitee signs up, joins as viewer and finds the pages read-only', asyn
 	const api = await page.request.post(`/api/v1/workspaces/${workspaceUrl.split('/')[2]}/molecules`, { data: { name: 'x', geometryXyz: XYZ } });
 	assert(api.status() === 403, `viewer POST to the API got ${api.status()}, expected 403`);
 });
+
+registerTuningSteps({ user: alice, workspaceUrl: () => workspaceUrl, consoleErrors });
 
 step('no uncaught errors in the pages', async () => {
 	assert(consoleErrors.length === 0, `page errors: ${consoleErrors.join('; ')}`);
