@@ -33,6 +33,7 @@ export {
 	TUNING_ANALYSIS_VERSION,
 	canonicalTuningInput,
 	inputFingerprintHex,
+	tuningInputFingerprint,
 	tuningAnalysis,
 	type TuningAnalysis,
 	type TuningAnalysisOptions,

@@ -40,3 +40,20 @@ describe('tuningAnalysis', () => {
 		expect(inputFingerprintHex('')).toMatch(/^[0-9a-f]{16}$/);
 	});
 });
+
+describe('tuningAnalysis: the inlined objective and the bit-level fingerprint', () => {
+	it('the objective at gamma* equals objectiveValue of the J terms there, for every objective', async () => {
+		const { objectiveValue } = await import('./objective-value');
+		for (const objective of ['abs-sum', 'square-sum', 'ip-only', 'lumo-variant'] as const) {
+			const o = tuningAnalysis(syntheticScan(GRID), { objective }).result.optimum!;
+			expect(o.objectiveValue).toBe(objectiveValue({ jIpEv: o.jIpEv, jEaEv: o.jEaEv, jEaLumoEv: o.jEaLumoEv }, { objective }));
+		}
+	});
+	it('a missing energy and a zero energy give different fingerprints; so do basis names', () => {
+		const pts = syntheticScan(GRID);
+		const a = tuningAnalysis(pts.map((p, i) => (i === 3 ? { ...p, lumoNeutralHartree: null } : p))).inputHash;
+		const b = tuningAnalysis(pts.map((p, i) => (i === 3 ? { ...p, lumoNeutralHartree: 0 } : p))).inputHash;
+		expect(a).not.toBe(b);
+		expect(tuningAnalysis(pts, { basisSet: 'aug-cc-pVDZ' }).inputHash).not.toBe(tuningAnalysis(pts, { basisSet: 'aug-cc-pVTZ' }).inputHash);
+	});
+});

@@ -58,7 +58,7 @@ function sampleCurves(chart: TuningChartPoint[], result: OptimalGammaResult): Tu
 	const used = new Set(result.usedGammasBohrInv);
 	const rows: TuningChartPoint[] = [];
 	for (const c of [...chart].sort((a, b) => a.gammaBohrInv - b.gammaBohrInv))
-		if (!c.excluded && used.has(c.gammaBohrInv) && !rows.some((r) => r.gammaBohrInv === c.gammaBohrInv)) rows.push(c);
+		if (!c.excluded && used.has(c.gammaBohrInv) && (rows.length === 0 || rows[rows.length - 1].gammaBohrInv !== c.gammaBohrInv)) rows.push(c);
 	if (rows.length < 2) return empty;
 	const xs = rows.map((r) => r.gammaBohrInv);
 	const ip = pchipInterpolant(xs, rows.map((r) => r.jIpEv as number));
@@ -80,27 +80,57 @@ function sampleCurves(chart: TuningChartPoint[], result: OptimalGammaResult): Tu
 	return out;
 }
 
-/** The input in a fixed key order with exact numbers, so equal inputs give equal text. */
+/** The input in a fixed key order with exact numbers, so equal inputs give equal text (for people and tests). */
 export function canonicalTuningInput(points: readonly ScanPoint[], objective: TuningObjective, basisSet: string | null): string {
 	const rows = points.map((p) => [p.gammaBohrInv, ...SCAN_ENERGY_FIELDS.map((f) => p[f] ?? null), p.excluded === true]);
 	return JSON.stringify({ v: TUNING_ANALYSIS_VERSION, objective, basisSet, points: rows });
 }
 
 /**
- * A 64-bit fingerprint (hex) of the text: two 32-bit multiply-xor lanes with a final avalanche (the
- * public-domain "cyrb53" construction, kept to 2 x 32 bits). Not cryptographic: it identifies an input.
+ * A 64-bit fingerprint (hex) of the 32-bit words given: two multiply-xor lanes with a final avalanche
+ * (the public-domain "cyrb53" construction, kept to 2 x 32 bits). Not cryptographic: it identifies an input.
  */
-export function inputFingerprintHex(text: string): string {
+function fingerprintWords(words: ArrayLike<number>): string {
 	let h1 = 0xdeadbeef;
 	let h2 = 0x41c6ce57;
-	for (let i = 0; i < text.length; i++) {
-		const ch = text.charCodeAt(i);
-		h1 = Math.imul(h1 ^ ch, 2654435761);
-		h2 = Math.imul(h2 ^ ch, 1597334677);
+	for (let i = 0; i < words.length; i++) {
+		const w = words[i];
+		h1 = Math.imul(h1 ^ w, 2654435761);
+		h2 = Math.imul(h2 ^ w, 1597334677);
 	}
 	h1 = Math.imul(h1 ^ (h1 >>> 16), 2246822507) ^ Math.imul(h2 ^ (h2 >>> 13), 3266489909);
 	h2 = Math.imul(h2 ^ (h2 >>> 16), 2246822507) ^ Math.imul(h1 ^ (h1 >>> 13), 3266489909);
 	return (h2 >>> 0).toString(16).padStart(8, '0') + (h1 >>> 0).toString(16).padStart(8, '0');
+}
+
+/** Fingerprint of a text (its UTF-16 code units). */
+export function inputFingerprintHex(text: string): string {
+	const words = new Uint32Array(text.length);
+	for (let i = 0; i < text.length; i++) words[i] = text.charCodeAt(i);
+	return fingerprintWords(words);
+}
+
+/**
+ * Fingerprint of the exact analysis input: the analysis version, objective and basis (as text), then per
+ * point the IEEE-754 bits of gamma and the six energies (missing = NaN, a bit pattern no energy has)
+ * and the exclusion flag. Equal inputs, bit for bit, give equal fingerprints; hashing the bits instead
+ * of a JSON text keeps a 1,000-point scan cheap.
+ */
+export function tuningInputFingerprint(points: readonly ScanPoint[], objective: TuningObjective, basisSet: string | null): string {
+	const head = JSON.stringify([TUNING_ANALYSIS_VERSION, objective, basisSet]);
+	const per = 1 + SCAN_ENERGY_FIELDS.length + 1;
+	const values = new Float64Array(points.length * per);
+	points.forEach((p, i) => {
+		values[i * per] = p.gammaBohrInv;
+		SCAN_ENERGY_FIELDS.forEach((f, k) => (values[i * per + 1 + k] = p[f] ?? Number.NaN));
+		values[i * per + per - 1] = p.excluded === true ? 1 : 0;
+	});
+	const bits = new Uint32Array(values.buffer);
+	const words = new Uint32Array(head.length + 1 + bits.length);
+	for (let i = 0; i < head.length; i++) words[i] = head.charCodeAt(i);
+	words[head.length] = points.length;
+	words.set(bits, head.length + 1);
+	return fingerprintWords(words);
 }
 
 const HARTREE_TO_EV = 27.211386245988; // CODATA 2018
@@ -124,7 +154,7 @@ export function tuningAnalysis(points: readonly ScanPoint[], options: TuningAnal
 	};
 	return {
 		analysisVersion: TUNING_ANALYSIS_VERSION,
-		inputHash: inputFingerprintHex(canonicalTuningInput(points, result.objective, basisSet)),
+		inputHash: tuningInputFingerprint(points, result.objective, basisSet),
 		input,
 		result,
 		chart,

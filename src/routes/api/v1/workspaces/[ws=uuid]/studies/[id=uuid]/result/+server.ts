@@ -10,5 +10,5 @@ export const GET = api(async (event) => {
 	await requireRole(event, event.params.ws!, 'viewer');
 	const s = await getStudy(db(), event.params.ws!, event.params.id!);
 	if (!s.result) throw new NotFoundError('saved result (save an analysis of this study first)');
-	return json({ studyId: s.id, savedAt: s.resultSavedAt, analysisVersion: s.resultAnalysisVersion, inputHash: s.resultInputHash, ...s.result }, { headers: { etag: `"${s.version}"` } });
+	return json({ studyId: s.id, savedAt: s.resultSavedAt, ...s.result }, { headers: { etag: `"${s.version}"` } });
 });
