@@ -159,7 +159,8 @@ describe('tuning studies over HTTP', () => {
 			probe(`/w/${fx.ws}/studies/${s.id}?/import`, { method: 'POST', cookie: editorCookie, action: true, body: new URLSearchParams({ text, mapping, energyUnit, gammaUnit: 'bohr^-1', version: '1' }) });
 		const wrong = await post('eV');
 		expect(wrong.status).toBe(400);
-		expect(wrong.body).toMatch(/line 2: column .{0,4}eps_homo_N_Ha.{0,4}: neutral HOMO -0.300 eV lies above -1 eV/);
+		expect(wrong.body).toMatch(/"line 2, column .{0,12}eps_homo_N_Ha.{0,12}: neutral HOMO -0.300 eV lies above -1 eV/);
+		expect(wrong.body).not.toContain('line 2: line 2');
 		expect(await listPoints(db, s.id)).toHaveLength(0);
 		const right = await post('hartree');
 		expect(right.type).toBe('success');

@@ -95,7 +95,7 @@ export const actions: Actions = {
 				// The same pure parser the preview used, so what was previewed is what is stored.
 				points = applyMapping(parseScanTable(f.text), mapping, { energyUnit: f.energyUnit, gammaUnit: f.gammaUnit });
 			} catch (e) {
-				if (e instanceof ScanTableError) throw new ValidationError(e.message, 'text', e.line ?? undefined);
+				if (e instanceof ScanTableError) throw new ValidationError(e.message, 'text'); // the message names line and column
 				throw e;
 			}
 			const r = await importPoints(db(), actor, event.params.id, points, { expectedVersion: f.version, source: f.source || 'a pasted table' });
