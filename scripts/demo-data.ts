@@ -4,6 +4,8 @@
 // plausible values for illustration only. Nothing here is a measurement.
 import type { MoleculeInput } from '../src/lib/schemas/molecule';
 import type { PolymorphInput } from '../src/lib/schemas/polymorph';
+import type { ScanPointInput } from '../src/lib/schemas/tuning';
+import { HARTREE_EV } from '../src/lib/science/units';
 
 /** A linear acene with n fused rings, planar in the xy plane, as XYZ text. */
 export function aceneXyz(rings: number, name: string): string {
@@ -77,3 +79,44 @@ export const DEMO_EPSILON: Record<string, number> = {
 	'thin film on oxide (demo)': 3.0,
 	'thin-film phase (demo)': 3.1
 };
+
+// Demo tuning scans: generated from smooth model functions (J terms nearly linear in gamma with a
+// chosen root, IP and EA drifting slowly with gamma). Invented demo data, not engine runs; the IP/EA
+// magnitudes are round numbers in the range known for acenes (recalled from memory, illustration only).
+export interface DemoScanModel {
+	/** Where J_IP and J_EA cross zero (bohr^-1); the demo's gamma*. */
+	gammaStar: number;
+	ipEv: number;
+	eaEv: number;
+}
+
+/** A scan of 9 points around the model's optimum, in hartree, as the API and importer take it. */
+export function demoScan(model: DemoScanModel): ScanPointInput[] {
+	const eNeutral = -500; // arbitrary reference total energy, hartree
+	const ev = (x: number) => x / HARTREE_EV;
+	return Array.from({ length: 9 }, (_, i) => {
+		const g = Number((model.gammaStar - 0.12 + i * 0.03).toFixed(4));
+		const d = g - model.gammaStar;
+		const ip = model.ipEv + 0.8 * d; // total-energy IP drifts slowly with gamma
+		const ea = model.eaEv - 0.5 * d;
+		const jIp = -4.0 * d + 1.5 * d * d; // eV; crosses zero at gammaStar
+		const jEa = -3.2 * d - 1.0 * d * d;
+		return {
+			gammaBohrInv: g,
+			eNeutralHartree: eNeutral,
+			eCationHartree: eNeutral + ev(ip),
+			eAnionHartree: eNeutral - ev(ea),
+			homoNeutralHartree: ev(jIp - ip), // J_IP = eps_HOMO + IP
+			lumoNeutralHartree: ev(-ea - 0.15 + 2.5 * d),
+			homoAnionHartree: ev(jEa - ea) // J_EA = eps_HOMO(N+1) + EA
+		};
+	});
+}
+
+export const DEMO_TUNING: Record<string, DemoScanModel> = {
+	'Naphthalene (reference donor)': { gammaStar: 0.27, ipEv: 8.1, eaEv: -0.3 },
+	'Anthracene (interlayer candidate)': { gammaStar: 0.235, ipEv: 7.4, eaEv: 0.5 },
+	'Tetracene (absorber)': { gammaStar: 0.21, ipEv: 6.9, eaEv: 1.0 },
+	'Pentacene (absorber, long wavelength)': { gammaStar: 0.195, ipEv: 6.55, eaEv: 1.35 }
+};
+

@@ -214,7 +214,9 @@ async function waitForHttp(url, timeoutMs = 60_000) {
 async function waitForPortFile(file, timeoutMs = 15_000) {
 	const t0 = Date.now();
 	while (Date.now() - t0 < timeoutMs) {
-		if (existsSync(file)) return Number(readFileSync(file, 'utf8'));
+		// The file can exist before its content is written: wait for a real port number.
+		const port = existsSync(file) ? Number(readFileSync(file, 'utf8')) : 0;
+		if (Number.isInteger(port) && port > 0) return port;
 		await new Promise((r) => setTimeout(r, 100));
 	}
 	throw new Error(`fake SMTP server did not start (no ${file})`);

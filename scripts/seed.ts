@@ -7,7 +7,8 @@ import { createMolecule } from '../src/lib/server/services/molecules';
 import { createPolymorph } from '../src/lib/server/services/polymorphs';
 import { addDielectricEntry, chooseEpsilon } from '../src/lib/server/services/dielectric';
 import { dielectricEntryInput } from '../src/lib/schemas/dielectric';
-import { DEMO_EPSILON, demoMolecules } from './demo-data';
+import { DEMO_EPSILON, DEMO_TUNING, demoMolecules, demoScan } from './demo-data';
+import { createStudy, importPoints, markCurrent, saveAnalysis } from '../src/lib/server/services/tuning';
 
 export async function seedDemo(db: Db, creds: { email: string; password: string; viewerEmail: string; viewerPassword: string }): Promise<string> {
 	const owner = await signUp(db, { email: creds.email, password: creds.password, name: 'Demo Researcher' });
@@ -21,6 +22,13 @@ export async function seedDemo(db: Db, creds: { email: string; password: string;
 	const actor = { userId: owner.userId, workspaceId: wsId, role: 'owner' as const };
 	for (const d of demoMolecules()) {
 		const m = await createMolecule(db, actor, d.molecule);
+		const model = DEMO_TUNING[d.molecule.name];
+		if (model) {
+			const study = await createStudy(db, actor, m.id, { name: 'α 0.2, aug-cc-pVDZ (demo scan)', engine: 'NWChem', engineVersion: '7.0.2', semilocalBase: 'PBE', basisSet: 'aug-cc-pVDZ', alpha: 0.2, objective: 'abs-sum', notes: 'Invented demo scan generated from a model, not an engine run.' });
+			const imported = await importPoints(db, actor, study.id, demoScan(model), { source: 'the demo seed' });
+			const saved = await saveAnalysis(db, actor, study.id, imported.study.version, { objective: 'abs-sum' });
+			await markCurrent(db, actor, study.id, saved.version);
+		}
 		for (const p of d.polymorphs) {
 			const poly = await createPolymorph(db, actor, m.id, p);
 			const eps = DEMO_EPSILON[p.label];

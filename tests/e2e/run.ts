@@ -3,6 +3,7 @@
 import type { Page } from 'playwright-core';
 import { assert, firstLink, newContext, runSteps, shot, step, waitForMail } from './harness';
 import { registerDielectricSteps } from './steps-dielectric';
+import { registerTuningSteps } from './steps-tuning';
 
 const run = Date.now().toString(36);
 const alice = { email: `alice-${run}@example.test`, password: 'correct-horse-battery', name: 'Alice Lindqvist' };
@@ -201,6 +202,7 @@ step('the invitee signs up, joins as viewer and finds the pages read-only', asyn
 });
 
 registerDielectricSteps(consoleErrors);
+registerTuningSteps({ user: alice, workspaceUrl: () => workspaceUrl, consoleErrors });
 
 step('no uncaught errors in the pages', async () => {
 	assert(consoleErrors.length === 0, `page errors: ${consoleErrors.join('; ')}`);

@@ -172,8 +172,9 @@ describe('applyMapping and parseScanPoints', () => {
 		expectNear(applyMapping(table, mapping, { energyUnit: 'eV' }), 1e-8);
 		// parseScanPoints takes the unit from the headers.
 		expectNear(parseScanPoints(tabEv), 1e-8);
-		// Read as hartree by mistake, the numbers are 27.2 times too large:
-		expect(applyMapping(table, mapping)[0].eNeutralHartree).toBeCloseTo(model[0].eNeutralHartree! * HARTREE_EV, 5);
+		// Read as hartree by mistake, the numbers are 27.2 times too large; the magnitude check refuses them:
+		expect(() => applyMapping(table, mapping)).toThrow(/^line 3, column "eps_HOMO\(N\) \(eV\)": orbital energy .* were the energies in eV\? Choose eV/);
+		expect(applyMapping(table, mapping, { checkMagnitudes: false })[0].eNeutralHartree).toBeCloseTo(model[0].eNeutralHartree! * HARTREE_EV, 5);
 	});
 
 	it('semicolon/decimal-comma fixture, with an excluded point', () => {
@@ -280,5 +281,35 @@ describe('writeScanCsv', () => {
 		expect(scanError(() => writeScanCsv([{ gammaBohrInv: 0.1, eNeutralHartree: Number.NaN }])).message).toBe(
 			'points[0].eNeutralHartree must be a finite number or null, got NaN'
 		);
+	});
+});
+
+describe('canonical header and unit magnitude checks', () => {
+	const canonical = 'gamma_bohr_inv,E_N_Ha,E_cation_Ha,E_anion_Ha,eps_homo_N_Ha,eps_lumo_N_Ha,eps_homo_anion_Ha';
+	const row = '0.2,-100.0,-99.7,-100.04,-0.3,-0.01,-0.04';
+
+	it('maps every column of the documented canonical header without a mapping step', () => {
+		const { mapping, unmatched, energyUnitHint } = proposeScanMapping(canonical.split(','));
+		expect(unmatched).toEqual([]);
+		expect(mapping).toEqual({ gammaBohrInv: 0, eNeutralHartree: 1, eCationHartree: 2, eAnionHartree: 3, homoNeutralHartree: 4, lumoNeutralHartree: 5, homoAnionHartree: 6 });
+		expect(energyUnitHint).toBe('hartree');
+	});
+
+	it('writes the canonical header on request, and reads it back', () => {
+		const pts = parseScanPoints(`${canonical}\n${row}\n`);
+		const text = writeScanCsv(pts, { header: 'canonical' });
+		expect(text.split('\n')[0]).toBe(`${canonical},excluded`);
+		expect(parseScanPoints(text)).toEqual(pts);
+	});
+
+	it('hartree values declared as eV are refused, naming line and column', () => {
+		expect(() => parseScanPoints(`${canonical}\n${row}\n`, { energyUnit: 'eV' })).toThrow(
+			/^line 2, column "eps_homo_N_Ha": neutral HOMO -0.300 eV lies above -1 eV: .* were the energies in hartree\?/
+		);
+	});
+
+	it('eV values declared as hartree are refused: orbital beyond 2 hartree, or E(N-1) - E(N) beyond 2 hartree', () => {
+		expect(() => parseScanPoints(`${canonical}\n0.2,-2721,-2713,-2722,-8.1,-0.3,-1.1\n`, { energyUnit: 'hartree' })).toThrow(/^line 2, column "eps_homo_N_Ha": orbital energy -8\.100 hartree/);
+		expect(() => parseScanPoints('gamma,E_N,E_cation\n0.2,-2721,-2713\n', { energyUnit: 'hartree' })).toThrow(/^line 2, column "E_cation": E\(N-1\) - E\(N\) = 8\.000 hartree/);
 	});
 });

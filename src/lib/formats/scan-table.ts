@@ -24,7 +24,7 @@
  */
 import type { ScanEnergyField, ScanPoint } from '$lib/science/tuning/types';
 import { SCAN_ENERGY_FIELDS } from '$lib/science/tuning/types';
-import { angInvToBohrInv, evToHartree } from '$lib/science/units';
+import { HARTREE_EV, angInvToBohrInv, evToHartree } from '$lib/science/units';
 
 export class ScanTableError extends Error {
 	/** 1-based line of the text, or null when the problem is not tied to one line. */
@@ -91,6 +91,13 @@ export interface ScanMappingProposal {
 export interface ApplyMappingOptions {
 	/** Unit of the energy columns (default 'hartree'); converted to hartree. */
 	energyUnit?: ScanEnergyUnit;
+	/**
+	 * Refuse values that are orders of magnitude off for the chosen unit (default true): an orbital energy
+	 * beyond ±2 hartree (54 eV), a neutral HOMO above -1 eV, or total energies whose difference E(N-1) - E(N)
+	 * is beyond 2 hartree. Valence orbital energies and ionization energies of molecules lie far inside
+	 * these bounds (common practice), so a hit almost always means the wrong unit was chosen.
+	 */
+	checkMagnitudes?: boolean;
 	/** Unit of the gamma column (default 'bohr^-1'); converted to bohr^-1. */
 	gammaUnit?: ScanGammaUnit;
 }
@@ -236,9 +243,9 @@ const ALIASES: Record<ScanField, string[]> = {
 	eNeutralHartree: ['en', 'e(n)', 'e0', 'eneutral', 'neutral', 'neutralenergy', 'energyneutral', 'etotn', 'etot(n)', 'en0', 'e(0)', 'eneutralhartree'],
 	eCationHartree: ['ecation', 'cation', 'e(n-1)', 'en-1', 'e+', 'e(+)', 'eplus', 'ecat', 'cationenergy', 'energycation', 'etot(n-1)', 'ecationhartree'],
 	eAnionHartree: ['eanion', 'anion', 'e(n+1)', 'en+1', 'e-', 'e(-)', 'eminus', 'ean', 'anionenergy', 'energyanion', 'etot(n+1)', 'eanionhartree'],
-	homoNeutralHartree: ['homo', 'homo(n)', 'homon', 'epshomo', 'epshomo(n)', 'ehomo', 'ehomo(n)', 'εhomo', 'homoneutral', 'neutralhomo', 'homoneutralhartree'],
-	lumoNeutralHartree: ['lumo', 'lumo(n)', 'lumon', 'epslumo', 'epslumo(n)', 'elumo', 'elumo(n)', 'εlumo', 'lumoneutral', 'neutrallumo', 'lumoneutralhartree'],
-	homoAnionHartree: ['homoanion', 'homo-anion', 'anionhomo', 'anion-homo', 'homo(n+1)', 'homon+1', 'epshomo(n+1)', 'ehomo(n+1)', 'εhomo(n+1)', 'homo(-)', 'homo-', 'homoa', 'homoanionhartree'],
+	homoNeutralHartree: ['homo', 'homo(n)', 'homon', 'epshomo', 'epshomo(n)', 'ehomo', 'ehomo(n)', 'εhomo', 'homoneutral', 'neutralhomo', 'homoneutralhartree', 'epshomon', 'epshomoneutral'],
+	lumoNeutralHartree: ['lumo', 'lumo(n)', 'lumon', 'epslumo', 'epslumo(n)', 'elumo', 'elumo(n)', 'εlumo', 'lumoneutral', 'neutrallumo', 'lumoneutralhartree', 'epslumon', 'epslumoneutral'],
+	homoAnionHartree: ['homoanion', 'homo-anion', 'anionhomo', 'anion-homo', 'homo(n+1)', 'homon+1', 'epshomo(n+1)', 'ehomo(n+1)', 'εhomo(n+1)', 'homo(-)', 'homo-', 'homoa', 'homoanionhartree', 'epshomoanion', 'epshomo(anion)'],
 	excluded: ['excluded', 'exclude', 'excl', 'skip', 'ignore', 'ignored']
 };
 
@@ -312,6 +319,15 @@ export function applyMapping(table: ScanTable, mapping: ScanMapping, options: Ap
 	const toHartree = energyUnit === 'eV' ? evToHartree : (v: number) => v;
 	const toBohrInv = gammaUnit === 'angstrom^-1' ? angInvToBohrInv : (v: number) => v;
 
+	const checkMagnitudes = options.checkMagnitudes ?? true;
+	const otherUnit = energyUnit === 'eV' ? 'hartree' : 'eV';
+	const wrongUnit = (line: number, field: ScanField, what: string): never => {
+		throw new ScanTableError(
+			`${what}: the value is orders of magnitude off for energies in ${energyUnit}; were the energies in ${otherUnit}? Choose ${otherUnit} as the energy unit.`,
+			line,
+			table.headers[mapping[field] as number]
+		);
+	};
 	return table.rows.map(({ line, cells }) => {
 		const number = (column: number, what: string): number | null => {
 			const v = cellNumber(cells[column] ?? '', table.decimalComma);
@@ -331,6 +347,20 @@ export function applyMapping(table: ScanTable, mapping: ScanMapping, options: Ap
 			}
 			const v = number(column, 'energy');
 			point[field] = v === null ? null : toHartree(v);
+		}
+		if (checkMagnitudes) {
+			for (const field of ['homoNeutralHartree', 'lumoNeutralHartree', 'homoAnionHartree'] as const) {
+				const v = point[field];
+				if (typeof v === 'number' && Math.abs(v) > 2)
+					wrongUnit(line, field, `orbital energy ${v.toPrecision(4)} hartree (${(v * HARTREE_EV).toPrecision(4)} eV) is beyond ±2 hartree`);
+			}
+			const homo = point.homoNeutralHartree;
+			if (typeof homo === 'number' && homo > -1 / HARTREE_EV)
+				wrongUnit(line, 'homoNeutralHartree', `neutral HOMO ${(homo * HARTREE_EV).toPrecision(3)} eV lies above -1 eV`);
+			const eN = point.eNeutralHartree;
+			const eC = point.eCationHartree;
+			if (typeof eN === 'number' && typeof eC === 'number' && Math.abs(eC - eN) > 2)
+				wrongUnit(line, 'eCationHartree', `E(N-1) - E(N) = ${(eC - eN).toPrecision(4)} hartree is beyond ±2 hartree`);
 		}
 		const exColumn = mapping.excluded;
 		if (exColumn !== undefined) {
@@ -364,7 +394,23 @@ export function parseScanPoints(input: string | Uint8Array, options: ParseScanPo
 export interface WriteScanCsvOptions {
 	/** Line ending (default '\n'). */
 	newline?: '\n' | '\r\n';
+	/**
+	 * 'fields' (default): the ScanPoint field names; 'canonical': the documented header
+	 * `gamma_bohr_inv,E_N_Ha,E_cation_Ha,E_anion_Ha,eps_homo_N_Ha,eps_lumo_N_Ha,eps_homo_anion_Ha,excluded`.
+	 */
+	header?: 'fields' | 'canonical';
 }
+
+/** The documented scan-table header (energies in hartree, gamma in bohr^-1), without the optional `excluded`. */
+export const CANONICAL_SCAN_HEADERS = [
+	'gamma_bohr_inv',
+	'E_N_Ha',
+	'E_cation_Ha',
+	'E_anion_Ha',
+	'eps_homo_N_Ha',
+	'eps_lumo_N_Ha',
+	'eps_homo_anion_Ha'
+] as const;
 
 /**
  * Writes points as CSV with a header of the field names (units in the names: hartree, bohr^-1):
@@ -375,7 +421,7 @@ export interface WriteScanCsvOptions {
 export function writeScanCsv(points: readonly ScanPoint[], options: WriteScanCsvOptions = {}): string {
 	const nl = options.newline ?? '\n';
 	if (!Array.isArray(points)) throw new ScanTableError('points must be an array of scan points');
-	const out = [SCAN_FIELDS.join(',')];
+	const out = [options.header === 'canonical' ? [...CANONICAL_SCAN_HEADERS, 'excluded'].join(',') : SCAN_FIELDS.join(',')];
 	points.forEach((p, i) => {
 		const g = p?.gammaBohrInv;
 		if (typeof g !== 'number' || !Number.isFinite(g) || g < 0)

@@ -28,3 +28,14 @@ export {
 	type ZeroCrossings
 } from './optimal-gamma';
 export { suggestRefinedGrid, type SuggestRefinedGridOptions } from './suggest-refined-grid';
+export { basisHasDiffuseFunctions } from './basis-has-diffuse-functions';
+export {
+	TUNING_ANALYSIS_VERSION,
+	canonicalTuningInput,
+	inputFingerprintHex,
+	tuningInputFingerprint,
+	tuningAnalysis,
+	type TuningAnalysis,
+	type TuningAnalysisOptions,
+	type TuningChartPoint
+} from './tuning-analysis';

@@ -283,3 +283,21 @@ describe('suggestRefinedGrid', () => {
 		expect(() => suggestRefinedGrid(r, pts, { stepBohrInv: 0 })).toThrow(TuningInputError);
 	});
 });
+
+describe('optimalGamma: anion term with a basis set without diffuse functions (common practice)', () => {
+	const points = syntheticScan(GRID);
+	it('warns for abs-sum, square-sum and lumo-variant with cc-pVDZ, with what to do', () => {
+		for (const objective of ['abs-sum', 'square-sum', 'lumo-variant'] as const) {
+			const d = optimalGamma(points, { objective, basisSet: 'cc-pVDZ' }).diagnostics.find((x) => x.code === 'anion-term-without-diffuse-basis');
+			expect(d?.severity).toBe('warning');
+			expect(d?.message).toContain("'cc-pVDZ' has no diffuse functions");
+			expect(d?.action).toContain('ip-only');
+		}
+	});
+	it('stays quiet for ip-only, for a diffuse basis and when no basis is given', () => {
+		expect(codes(optimalGamma(points, { objective: 'ip-only', basisSet: 'cc-pVDZ' }).diagnostics)).not.toContain('anion-term-without-diffuse-basis');
+		expect(codes(optimalGamma(points, { basisSet: 'aug-cc-pVDZ' }).diagnostics)).not.toContain('anion-term-without-diffuse-basis');
+		expect(codes(optimalGamma(points, { basisSet: '6-31+G*' }).diagnostics)).not.toContain('anion-term-without-diffuse-basis');
+		expect(codes(optimalGamma(points).diagnostics)).not.toContain('anion-term-without-diffuse-basis');
+	});
+});

@@ -10,18 +10,20 @@
  *    interpolate the terms, never the objective).
  * 4. Minimise on every interval between usable grid points, split at the J terms' zero crossings (where
  *    |J| has its kinks), with Brent's method on each smooth piece; the grid points and crossings are
- *    candidates too. Scanning every interval (not only those beside the best grid point) costs little
- *    and finds the global minimum of the interpolated objective; the result is cross-checked against the
+ *    candidates too. Every interval is considered (not only those beside the best grid point), skipping
+ *    only pieces whose exact lower bound cannot beat the best value found (cheap even for 1,000 points)
+ *    so it finds the global minimum of the interpolated objective; the result is cross-checked against the
  *    best grid point and a warning is given when they are not neighbours.
  * 5. Report gamma*, the objective there, the zero crossings and their distance, the levels at gamma*
  *    (interpolated the same way) and diagnostics in plain words with what to do.
  * When a diagnostic of severity 'error' is present, `optimum` and `bestGridPoint` are null.
  */
 import { hartreeToEv } from '../units';
+import { basisHasDiffuseFunctions } from './basis-has-diffuse-functions';
 import { brentMinimum } from './brent-minimum';
 import type { CubicInterpolant } from './cubic-hermite-interpolant';
 import { interpolantZeros } from './interpolant-zeros';
-import { checkedObjective, objectiveNeeds, objectiveUnit, objectiveValue } from './objective-value';
+import { checkedObjective, objectiveNeeds, objectiveUnit } from './objective-value';
 import { pchipInterpolant } from './pchip-interpolant';
 import { smoothnessOutliers } from './smoothness-outliers';
 import { TuningInputError } from './tuning-input-error';
@@ -57,6 +59,12 @@ export interface OptimalGammaOptions {
 	outlierRelativeFactor?: number;
 	/** Tolerance of the minimiser and root finder, bohr^-1 (default 1e-10). */
 	toleranceBohrInv?: number;
+	/**
+	 * Name of the basis set the scan was run with (e.g. 'aug-cc-pVDZ'). When given and it has no diffuse
+	 * functions by common naming (see basisHasDiffuseFunctions) while the objective uses an anion term,
+	 * a warning is added.
+	 */
+	basisSet?: string | null;
 }
 
 /** The levels and J terms at gamma*, in eV (interpolated; null when not available there). */
@@ -207,7 +215,8 @@ export function optimalGamma(points: readonly ScanPoint[], options: OptimalGamma
 
 	// 2. Points lacking what the objective needs.
 	const usable = rows.filter((r) => neededKeys.every((k) => r.terms[k] !== null));
-	const incomplete = rows.filter((r) => !usable.includes(r)).map((r) => r.terms.gammaBohrInv);
+	const usableSet = new Set(usable);
+	const incomplete = rows.filter((r) => !usableSet.has(r)).map((r) => r.terms.gammaBohrInv);
 	if (incomplete.length > 0)
 		diagnostics.push({
 			code: 'incomplete-points',
@@ -249,6 +258,15 @@ export function optimalGamma(points: readonly ScanPoint[], options: OptimalGamma
 			diagnostics
 		};
 
+	// 3b. An anion term in the objective computed without diffuse functions (common practice: anions need them).
+	if (eaKey !== null && basisHasDiffuseFunctions(options.basisSet) === false)
+		diagnostics.push({
+			code: 'anion-term-without-diffuse-basis',
+			severity: 'warning',
+			message: `The '${objective}' objective uses an anion term (${TERM_NAMES[eaKey]}), but the basis set '${String(options.basisSet).trim()}' has no diffuse functions by its name: the extra electron is squeezed into too compact functions, so EA and the anion's orbital energy are unreliable (common practice).`,
+			action: 'Rerun the anion (and, for consistency, the whole scan) with a diffuse basis (aug-cc-pVDZ, 6-31+G*, def2-SVPD), or use the ip-only objective.'
+		});
+
 	// 4. Points that break smoothness (likely failed SCF).
 	for (const f of SCAN_ENERGY_FIELDS) {
 		const ok = rows.filter((r) => typeof r.point[f] === 'number');
@@ -283,13 +301,15 @@ export function optimalGamma(points: readonly ScanPoint[], options: OptimalGamma
 		const v = at(interp[k], g);
 		return v === null ? null : hartreeToEv(v);
 	};
+	// The objective of the interpolated terms (objectiveValue's formulas, inlined: it is evaluated
+	// thousands of times). Both needed interpolants run over the usable points, so g is always inside.
+	const fIp = interp.jIpHartree as CubicInterpolant;
+	const fEa = eaKey === null ? null : (interp[eaKey] as CubicInterpolant);
 	const F = (g: number): number => {
-		const v = objectiveValue(
-			{ jIpEv: evAt('jIpHartree', g), jEaEv: evAt('jEaHartree', g), jEaLumoEv: evAt('jEaLumoHartree', g) },
-			{ objective }
-		);
-		if (v === null) throw new TuningInputError(`objective undefined at gamma = ${g}`, 'points');
-		return v;
+		const ip = hartreeToEv(fIp.value(g));
+		if (fEa === null) return Math.abs(ip);
+		const ea = hartreeToEv(fEa.value(g));
+		return objective === 'square-sum' ? ip * ip + ea * ea : Math.abs(ip) + Math.abs(ea);
 	};
 
 	// 6. Best grid point, then the minimum of the interpolated objective.
@@ -300,12 +320,43 @@ export function optimalGamma(points: readonly ScanPoint[], options: OptimalGamma
 	});
 	let gStar = xs[best];
 	let fStar = gridValues[best];
-	const kinks = neededKeys.flatMap((k) => zeros[k]);
-	for (let i = 0; i < xs.length - 1; i++) {
-		const cuts = [xs[i], ...kinks.filter((z) => z > xs[i] && z < xs[i + 1]), xs[i + 1]].sort((a, b) => a - b);
+	const kinks = neededKeys.flatMap((k) => zeros[k]).sort((a, b) => a - b);
+	// A lower bound of the objective on a piece between kinks: on each interval between nodes, PCHIP is
+	// monotone (Fritsch & Carlson 1980: node slopes within [0, 3] x the secant, which the Fritsch-Butland
+	// and end rules guarantee), so each |J| on a piece is at least its smaller end value. Pieces whose
+	// bound cannot beat the best value so far are skipped: this does not change the result, and keeps
+	// a 1,000-point scan well inside one frame. Intervals are visited nearest the best grid point first.
+	const termEv = (k: TermKey, g: number) => Math.abs(evAt(k, g) as number);
+	const lowerBound = (a: number, b: number): number => {
+		const ip = Math.min(termEv('jIpHartree', a), termEv('jIpHartree', b));
+		if (eaKey === null) return ip;
+		const ea = Math.min(termEv(eaKey, a), termEv(eaKey, b));
+		return objective === 'square-sum' ? ip * ip + ea * ea : ip + ea;
+	};
+	const order = xs.slice(0, -1).map((_, i) => i).sort((a, b) => Math.abs(a + 0.5 - best) - Math.abs(b + 0.5 - best));
+	// Per interval, the same bound from the node values (the interpolant equals them at the nodes), so
+	// most intervals of a long scan are passed over without evaluating anything.
+	const nodeIp = fIp.ys.map((y) => Math.abs(hartreeToEv(y)));
+	const nodeEa = fEa === null ? null : fEa.ys.map((y) => Math.abs(hartreeToEv(y)));
+	const minAbs = (ys: readonly number[], nodes: number[], i: number) => (ys[i] * ys[i + 1] <= 0 ? 0 : Math.min(nodes[i], nodes[i + 1]));
+	const intervalBound = (i: number): number => {
+		const ip = minAbs(fIp.ys, nodeIp, i);
+		if (fEa === null || nodeEa === null) return ip;
+		const ea = minAbs(fEa.ys, nodeEa, i);
+		return objective === 'square-sum' ? ip * ip + ea * ea : ip + ea;
+	};
+	let kinkFrom = 0;
+	for (const i of order) {
+		if (intervalBound(i) >= fStar) continue;
+		while (kinkFrom > 0 && kinks[kinkFrom - 1] > xs[i]) kinkFrom--;
+		while (kinkFrom < kinks.length && kinks[kinkFrom] <= xs[i]) kinkFrom++;
+		const inside: number[] = [];
+		for (let q = kinkFrom; q < kinks.length && kinks[q] < xs[i + 1]; q++) inside.push(kinks[q]);
+		const cuts = [xs[i], ...inside, xs[i + 1]];
 		for (let j = 0; j < cuts.length - 1; j++) {
 			const candidates: number[] = [cuts[j + 1]];
-			if (cuts[j + 1] - cuts[j] > 4 * tol) candidates.push(brentMinimum(F, cuts[j], cuts[j + 1], { tolerance: tol }).x);
+			const bound = lowerBound(cuts[j], cuts[j + 1]);
+			if (cuts[j + 1] - cuts[j] > 4 * tol && bound < fStar) candidates.push(brentMinimum(F, cuts[j], cuts[j + 1], { tolerance: tol }).x);
 			for (const c of candidates) {
 				const v = F(c);
 				if (v < fStar) {

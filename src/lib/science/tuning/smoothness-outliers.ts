@@ -45,59 +45,88 @@ export interface SmoothnessOutlier {
 	score: number;
 }
 
-/** Solves the small dense system a x = b by Gaussian elimination with partial pivoting (null if singular). */
-function solveSmall(a: number[][], b: number[]): number[] | null {
-	const k = b.length;
-	const m = a.map((row, i) => [...row, b[i]]);
-	for (let col = 0; col < k; col++) {
-		let piv = col;
-		for (let r = col + 1; r < k; r++) if (Math.abs(m[r][col]) > Math.abs(m[piv][col])) piv = r;
-		[m[col], m[piv]] = [m[piv], m[col]];
-		if (Math.abs(m[col][col]) < 1e-300) return null;
-		for (let r = col + 1; r < k; r++) {
-			const f = m[r][col] / m[col][col];
-			for (let c = col; c <= k; c++) m[r][c] -= f * m[col][c];
+// Scratch space for the small least-squares systems (degree <= 3, so at most 4 unknowns). The routine
+// is synchronous and never re-entered, so module-level scratch arrays are safe and keep a 1,000-point
+// scan free of allocations in the inner loop (see bench/tuning-analysis.ts).
+const AUG = new Float64Array(4 * 6); // k rows of [A | b | e1], k <= 4
+const ROWS = new Int32Array(4);
+const SOL = new Float64Array(8); // coefficients, then the first column of the inverse
+const POW = new Float64Array(7); // power sums of u
+const TV = new Float64Array(4); // sums of u^r v
+
+/**
+ * Solves (A^T A) c = A^T v and (A^T A) e = e_1 for the polynomial basis 1, u, ..., u^(k-1) by Gaussian
+ * elimination with partial pivoting on both right-hand sides at once (the same operations as two
+ * separate solves). Writes c to SOL[0..k-1] and e to SOL[4..4+k-1]. Returns false when singular.
+ */
+function solveNormal(u: Float64Array, v: Float64Array, len: number, k: number): boolean {
+	const w = k + 2;
+	// The normal matrix of the basis 1, u, ..., u^(k-1) is a Hankel matrix of the power sums
+	// S_m = sum u^m (m = 0 .. 2k-2); the right-hand side is T_r = sum u^r v.
+	for (let m = 0; m < 2 * k - 1; m++) POW[m] = 0;
+	for (let r = 0; r < k; r++) TV[r] = 0;
+	for (let i = 0; i < len; i++) {
+		let p = 1;
+		for (let m = 0; m < 2 * k - 1; m++) {
+			POW[m] += p;
+			if (m < k) TV[m] += p * v[i];
+			p *= u[i];
 		}
 	}
-	const x = new Array<number>(k).fill(0);
-	for (let r = k - 1; r >= 0; r--) {
-		let s = m[r][k];
-		for (let c = r + 1; c < k; c++) s -= m[r][c] * x[c];
-		x[r] = s / m[r][r];
+	for (let r = 0; r < k; r++) {
+		for (let c = 0; c < k; c++) AUG[r * w + c] = POW[r + c];
+		AUG[r * w + k] = TV[r];
 	}
-	return x;
+	for (let r = 0; r < k; r++) {
+		AUG[r * w + k + 1] = r === 0 ? 1 : 0;
+		ROWS[r] = r;
+	}
+	for (let col = 0; col < k; col++) {
+		let piv = col;
+		for (let r = col + 1; r < k; r++) if (Math.abs(AUG[ROWS[r] * w + col]) > Math.abs(AUG[ROWS[piv] * w + col])) piv = r;
+		const t = ROWS[col];
+		ROWS[col] = ROWS[piv];
+		ROWS[piv] = t;
+		const pc = ROWS[col] * w;
+		if (Math.abs(AUG[pc + col]) < 1e-300) return false;
+		for (let r = col + 1; r < k; r++) {
+			const rr = ROWS[r] * w;
+			const f = AUG[rr + col] / AUG[pc + col];
+			for (let c = col; c < w; c++) AUG[rr + c] -= f * AUG[pc + c];
+		}
+	}
+	for (let rhs = 0; rhs < 2; rhs++) {
+		for (let r = k - 1; r >= 0; r--) {
+			const rr = ROWS[r] * w;
+			let sum = AUG[rr + k + rhs];
+			for (let c = r + 1; c < k; c++) sum -= AUG[rr + c] * SOL[rhs * 4 + c];
+			SOL[rhs * 4 + r] = sum / AUG[rr + r];
+		}
+	}
+	return true;
 }
 
 /**
- * Least-squares polynomial of the given degree through (u_i, y_i), evaluated at u = 0, with the standard
- * deviation of that prediction for a new observation: s sqrt(1 + leverage), s the rms misfit with
- * degrees-of-freedom correction, leverage = [(X^T X)^-1]_00. Extrapolation (an end point) has a large
- * leverage, so its larger prediction error is not mistaken for an outlier. Null if the fit is singular.
+ * Least-squares polynomial of the given degree through (u, v) (u scaled to [-1, 1] around the tested
+ * point, which sits at u = 0): its value at u = 0 and the standard deviation of that prediction for a
+ * new observation, s * sqrt(1 + e0), with s the rms misfit and e0 = [(A^T A)^-1]_00 the leverage.
  */
-function localPrediction(u: number[], y: number[], degree: number): { value: number; sd: number } | null {
+const PRED = { value: 0, sd: 0 }; // result of localPrediction (scratch, see above)
+
+function localPrediction(u: Float64Array, v: Float64Array, len: number, degree: number): boolean {
 	const k = degree + 1;
-	const ata = Array.from({ length: k }, () => new Array<number>(k).fill(0));
-	const aty = new Array<number>(k).fill(0);
-	for (let i = 0; i < u.length; i++) {
-		const pw = [1];
-		for (let p = 1; p < k; p++) pw.push(pw[p - 1] * u[i]);
-		for (let r = 0; r < k; r++) {
-			aty[r] += pw[r] * y[i];
-			for (let c = 0; c < k; c++) ata[r][c] += pw[r] * pw[c];
-		}
-	}
-	const coef = solveSmall(ata, aty);
-	const e0 = solveSmall(ata, [1, ...new Array<number>(k - 1).fill(0)]);
-	if (coef === null || e0 === null) return null;
+	if (!solveNormal(u, v, len, k)) return false;
 	let ssr = 0;
-	for (let i = 0; i < u.length; i++) {
+	for (let i = 0; i < len; i++) {
 		let p = 0;
-		for (let c = k - 1; c >= 0; c--) p = p * u[i] + coef[c];
-		ssr += (y[i] - p) ** 2;
+		for (let c = k - 1; c >= 0; c--) p = p * u[i] + SOL[c];
+		ssr += (v[i] - p) ** 2;
 	}
-	const dof = u.length - k;
+	const dof = len - k;
 	const s = dof > 0 ? Math.sqrt(ssr / dof) : 0;
-	return { value: coef[0], sd: s * Math.sqrt(1 + Math.max(0, e0[0])) };
+	PRED.value = SOL[0];
+	PRED.sd = s * Math.sqrt(1 + Math.max(0, SOL[4]));
+	return true;
 }
 
 export function smoothnessOutliers(
@@ -128,43 +157,60 @@ export function smoothnessOutliers(
 	}
 	const maxOutliers = options.maxOutliers ?? Math.floor((xs.length - 1) / 4);
 
-	/** Leave-one-out residual and score of every point of `set` (indices into xs), in order. */
-	const looScores = (set: number[]): { index: number; residual: number; score: number }[] => {
+	/** The point of `set` (indices into xs) with the highest leave-one-out score that passes both limits. */
+	const bestCandidate = (set: number[]): SmoothnessOutlier | null => {
 		const m = set.length;
 		const size = Math.min(windowSize, m);
-		const out: { index: number; residual: number; score: number }[] = [];
+		let best: SmoothnessOutlier | null = null;
+		const u = new Float64Array(size);
+		const v = new Float64Array(size);
 		for (let j = 0; j < m; j++) {
 			const start = Math.min(Math.max(0, j - Math.floor(size / 2)), m - size);
-			const others = set.slice(start, start + size).filter((_, q) => start + q !== j);
-			const degree = Math.min(3, others.length - 3);
 			const xj = xs[set[j]];
-			const span = Math.max(...others.map((i) => Math.abs(xs[i] - xj)));
-			const yMean = others.reduce((s, i) => s + ys[i], 0) / others.length;
-			const u = others.map((i) => (xs[i] - xj) / span);
-			const v = others.map((i) => ys[i] - yMean);
-			const fit = localPrediction(u, v, degree);
-			if (fit === null) continue;
+			let len = 0;
+			let span = 0;
+			let yMean = 0;
+			for (let q = start; q < start + size; q++) {
+				if (q === j) continue;
+				span = Math.max(span, Math.abs(xs[set[q]] - xj));
+				yMean += ys[set[q]];
+				len++;
+			}
+			yMean /= len;
+			let allPos = true;
+			let allNeg = true;
+			for (let q = start, i = 0; q < start + size; q++) {
+				if (q === j) continue;
+				u[i] = (xs[set[q]] - xj) / span;
+				v[i] = ys[set[q]] - yMean;
+				if (!(u[i] > 0)) allPos = false;
+				if (!(u[i] < 0)) allNeg = false;
+				i++;
+			}
+			const degree = Math.min(3, len - 3);
+			if (!localPrediction(u, v, len, degree)) continue;
+			const fitValue = PRED.value;
+			const fitSd = PRED.sd;
 			// At an end point the fit is extrapolated, and for a strongly curved series its error is
 			// systematic, not captured by the misfit. Add a model uncertainty there: half the change of the
 			// prediction when the degree drops by one (the weight 1/2 was chosen on synthetic curved scans:
 			// about 1 % false alarms on smooth data, end-point jumps of ~30 mHa found in most cases).
-			const extrapolated = u.every((t) => t > 0) || u.every((t) => t < 0);
-			const lower = extrapolated && degree > 1 ? localPrediction(u, v, degree - 1) : null;
-			const modelSd = lower === null ? 0 : 0.5 * Math.abs(fit.value - lower.value);
-			const sd = Math.max(Math.hypot(fit.sd, modelSd), noiseFloor);
-			const residual = ys[set[j]] - yMean - fit.value;
-			out.push({ index: set[j], residual, score: Math.abs(residual) / sd });
+			const extrapolated = allPos || allNeg;
+			const lower = extrapolated && degree > 1 && localPrediction(u, v, len, degree - 1);
+			const modelSd = lower ? 0.5 * Math.abs(fitValue - PRED.value) : 0;
+			const sd = Math.max(Math.hypot(fitSd, modelSd), noiseFloor);
+			const residual = ys[set[j]] - yMean - fitValue;
+			const score = Math.abs(residual) / sd;
+			if (Math.abs(residual) > threshold && score > relativeFactor && (best === null || score > best.score))
+				best = { index: set[j], x: xs[set[j]], residual, score };
 		}
-		return out;
+		return best;
 	};
 
 	const remaining = xs.map((_, i) => i);
 	const found: SmoothnessOutlier[] = [];
 	while (found.length < maxOutliers && remaining.length >= minPoints) {
-		let best: SmoothnessOutlier | null = null;
-		for (const c of looScores(remaining))
-			if (Math.abs(c.residual) > threshold && c.score > relativeFactor && (best === null || c.score > best.score))
-				best = { index: c.index, x: xs[c.index], residual: c.residual, score: c.score };
+		const best = bestCandidate(remaining);
 		if (best === null) break;
 		found.push(best);
 		remaining.splice(remaining.indexOf(best.index), 1);

@@ -75,7 +75,8 @@ export type TuningDiagnosticCode =
 	| 'crossings-far-apart'
 	| 'unbound-anion'
 	| 'unbound-anion-at-optimum'
-	| 'non-smooth-point';
+	| 'non-smooth-point'
+	| 'anion-term-without-diffuse-basis';
 
 /** A finding about a scan, in plain words, with what to do about it. */
 export interface TuningDiagnostic {

@@ -2,6 +2,8 @@
 import pkg from '../../../../package.json' with { type: 'json' };
 import './core';
 import './dielectric';
+import './tuning';
+import './levels';
 import { allOperations, buildDocument } from './registry';
 
 let cached: ReturnType<typeof buildDocument> | undefined;

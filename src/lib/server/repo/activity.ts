@@ -3,10 +3,12 @@ import type { Executor } from '../db';
 export interface ActivityInput {
 	workspaceId: string;
 	actorId: string | null;
-	entityType: 'molecule' | 'polymorph' | 'workspace' | 'membership' | 'invitation';
+	entityType: 'molecule' | 'polymorph' | 'workspace' | 'membership' | 'invitation' | 'tuning_study' | 'scan_point';
 	entityId: string;
-	action: 'create' | 'update' | 'delete' | 'invite' | 'join' | 'role' | 'remove' | 'rename'
-		| 'cif_import' | 'cif_replace' | 'dielectric_add' | 'dielectric_delete' | 'choose_epsilon';
+	action:
+		| 'create' | 'update' | 'delete' | 'invite' | 'join' | 'role' | 'remove' | 'rename'
+		| 'cif_import' | 'cif_replace' | 'dielectric_add' | 'dielectric_delete' | 'choose_epsilon'
+		| 'import' | 'exclude' | 'include' | 'mark-current' | 'save-result';
 	summary: string;
 	before?: unknown;
 	after?: unknown;

@@ -31,7 +31,14 @@ async function bundleInput(db: Executor, workspaceId: string, req: BundleRequest
 		if (!p) throw new NotFoundError('polymorph');
 		polymorphLabel = p.label;
 	}
-	const atoms = parseXyz(m.geometry_xyz).atoms.map((a) => ({ element: a.element, x: a.x, y: a.y, z: a.z }));
+	// A study's decks use the geometry frozen with the study, not the molecule's current one.
+	let geometry = m.geometry_xyz;
+	if (req.studyId) {
+		const st = await db.selectFrom('tuning_study').select('geometry_xyz').where('workspace_id', '=', workspaceId).where('id', '=', req.studyId).where('molecule_id', '=', req.moleculeId).executeTakeFirst();
+		if (!st) throw new NotFoundError('tuning study');
+		geometry = st.geometry_xyz;
+	}
+	const atoms = parseXyz(geometry).atoms.map((a) => ({ element: a.element, x: a.x, y: a.y, z: a.z }));
 	return {
 		moleculeName: m.name,
 		polymorphLabel,

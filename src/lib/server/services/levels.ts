@@ -1,6 +1,7 @@
 import type { Executor } from '../db';
 import { getEpsilonInUse } from './dielectric';
 import { listMeasurements, type Measurement } from './measurements';
+import { currentStudyOf } from './tuning';
 
 /** The gas-phase tuned parameters the solid-state estimate starts from (the molecule's current study). */
 export interface TunedParameters {
@@ -22,21 +23,28 @@ export interface EpsilonChoice {
 
 export interface LevelsContext {
 	tuned: TunedParameters | null;
+	/** Why `tuned` is null, in words the page shows. */
+	tunedMissing: string | null;
 	epsilonInUse: EpsilonChoice | null;
 	measurements: Measurement[];
 }
 
-/**
- * Everything the levels page needs for a polymorph. The tuned parameters and the epsilon in use come
- * from the tuning and dielectric records; until a molecule has a current study (or a polymorph an
- * epsilon in use) they are null and the page says what is missing.
- */
 const KIND_LABEL: Record<string, string> = { scalar: 'scalar', tensor: 'tensor', refractive_index: 'n²', clausius_mossotti: 'Clausius–Mossotti' };
 
-export async function levelsContext(db: Executor, workspaceId: string, polymorphId: string, _moleculeId: string): Promise<LevelsContext> {
-	const [eps, measurements] = await Promise.all([getEpsilonInUse(db, workspaceId, polymorphId), listMeasurements(db, workspaceId, polymorphId)]);
+/** Everything the levels page needs for a polymorph: the current tuned study, the epsilon in use, the measurements. */
+export async function levelsContext(db: Executor, workspaceId: string, polymorphId: string, moleculeId: string): Promise<LevelsContext> {
+	const [study, eps, measurements] = await Promise.all([
+		currentStudyOf(db, workspaceId, moleculeId),
+		getEpsilonInUse(db, workspaceId, polymorphId),
+		listMeasurements(db, workspaceId, polymorphId)
+	]);
+	let tuned: TunedParameters | null = null;
+	let tunedMissing: string | null = null;
+	if (!study) tunedMissing = 'no tuning study of this molecule is marked current';
+	else if (study.gammaStarBohrInv === null || study.ipEv === null || study.eaEv === null) tunedMissing = `the current study “${study.name}” has no saved analysis with gamma*, IP and EA`;
+	else tuned = { studyId: study.id, studyLabel: study.name, alpha: study.alpha, gammaBohrInv: study.gammaStarBohrInv, ipEv: study.ipEv, eaEv: study.eaEv };
 	const epsilonInUse = eps
 		? { entryId: eps.entryId, epsilon: eps.entry.epsilon, uncertainty: eps.entry.epsilonUncertainty, label: `${KIND_LABEL[eps.entry.kind] ?? eps.entry.kind}, ${eps.entry.frequency}${eps.entry.source.method ? ` — ${eps.entry.source.method}` : ''}` }
 		: null;
-	return { tuned: null, epsilonInUse, measurements };
+	return { tuned, tunedMissing, epsilonInUse, measurements };
 }

@@ -201,6 +201,9 @@ export async function deleteMolecule(db: Executor, actor: Actor, id: string, exp
 		const deps = await tx.selectFrom('polymorph').select('label').where('molecule_id', '=', id).execute();
 		if (deps.length)
 			throw new DependentsError(`molecule ${current.name} still has ${deps.length} polymorph(s): delete them first`, deps.map((d) => `polymorph ${d.label}`));
+		const studies = await tx.selectFrom('tuning_study').select('name').where('molecule_id', '=', id).execute();
+		if (studies.length)
+			throw new DependentsError(`molecule ${current.name} still has ${studies.length} tuning study(ies): delete them first`, studies.map((d) => `tuning study ${d.name}`));
 		await tx.deleteFrom('molecule').where('id', '=', id).execute();
 		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'molecule', entityId: id, action: 'delete', summary: `deleted molecule ${current.name}`, before: snapshot(toMolecule(current)) });
 	});

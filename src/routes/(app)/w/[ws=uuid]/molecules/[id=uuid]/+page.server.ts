@@ -13,6 +13,7 @@ import { readFormWithFile } from '$lib/server/dielectric-forms';
 import { cifImportInput, MAX_CIF_BYTES } from '$lib/schemas/dielectric';
 import { importPolymorphFromCif } from '$lib/server/services/cif-import';
 import { epsilonInUseByPolymorph } from '$lib/server/services/dielectric';
+import { listStudies } from '$lib/server/services/tuning';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -25,9 +26,10 @@ export const load: PageServerLoad = async (event) => {
 		throw e;
 	}
 	const polymorphs = await listPolymorphs(db(), event.params.ws, { moleculeId: molecule.id });
+	const tuningStudies = await listStudies(db(), event.params.ws, { moleculeId: molecule.id });
 	const activity = await listActivity(db(), event.params.ws, { entityIds: [molecule.id, ...polymorphs.map((p) => p.id)], limit: 20 });
 	const epsilonInUse = await epsilonInUseByPolymorph(db(), event.params.ws, polymorphs.map((p) => p.id));
-	return { molecule, polymorphs, activity, epsilonInUse };
+	return { molecule, polymorphs, activity, epsilonInUse, tuningStudies };
 };
 
 export const actions: Actions = {
