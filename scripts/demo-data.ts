@@ -92,15 +92,16 @@ export interface DemoScanModel {
 
 /** A scan of 9 points around the model's optimum, in hartree, as the API and importer take it. */
 export function demoScan(model: DemoScanModel): ScanPointInput[] {
-	const eNeutral = -500; // arbitrary reference total energy, hartree
 	const ev = (x: number) => x / HARTREE_EV;
 	return Array.from({ length: 9 }, (_, i) => {
-		const g = Number((model.gammaStar - 0.12 + i * 0.03).toFixed(4));
+		const g = Number((model.gammaStar - 0.107 + i * 0.03).toFixed(4)); // grid not centred on the optimum
 		const d = g - model.gammaStar;
+		// Total energy rises smoothly with gamma, as range-separated hybrids' energies do (arbitrary reference).
+		const eNeutral = -500 + 0.12 * g + 0.3 * g * g;
 		const ip = model.ipEv + 0.8 * d; // total-energy IP drifts slowly with gamma
 		const ea = model.eaEv - 0.5 * d;
 		const jIp = -4.0 * d + 1.5 * d * d; // eV; crosses zero at gammaStar
-		const jEa = -3.2 * d - 1.0 * d * d;
+		const jEa = -3.2 * (d - 0.012) - 1.0 * d * d; // J_EA crosses a little above J_IP, as real scans do
 		return {
 			gammaBohrInv: g,
 			eNeutralHartree: eNeutral,

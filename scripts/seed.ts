@@ -1,7 +1,7 @@
 // Seeds the demo workspace when the database has no users yet. Run by `npm start`.
 import { readFileSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
-import { createDb, type Db } from '../src/lib/server/db/create-db';
+import { createDb, type Executor } from '../src/lib/server/db/create-db';
 import { signUp } from '../src/lib/server/services/accounts';
 import { createMolecule } from '../src/lib/server/services/molecules';
 import { createPolymorph } from '../src/lib/server/services/polymorphs';
@@ -10,7 +10,7 @@ import { dielectricEntryInput } from '../src/lib/schemas/dielectric';
 import { DEMO_EPSILON, DEMO_TUNING, demoMolecules, demoScan } from './demo-data';
 import { createStudy, importPoints, markCurrent, saveAnalysis } from '../src/lib/server/services/tuning';
 
-export async function seedDemo(db: Db, creds: { email: string; password: string; viewerEmail: string; viewerPassword: string }): Promise<string> {
+export async function seedDemo(db: Executor, creds: { email: string; password: string; viewerEmail: string; viewerPassword: string }): Promise<string> {
 	const owner = await signUp(db, { email: creds.email, password: creds.password, name: 'Demo Researcher' });
 	const viewer = await signUp(db, { email: creds.viewerEmail, password: creds.viewerPassword, name: 'Demo Collaborator (experiment)' });
 	// The demo users' personal workspaces become (owner) or give way to (collaborator) the demo workspace,
@@ -53,7 +53,8 @@ async function main() {
 			return;
 		}
 		const creds = JSON.parse(readFileSync(new URL('./demo-credentials.json', import.meta.url), 'utf8'));
-		await seedDemo(db, creds);
+		// One transaction: a failed seed leaves the database empty, and the next start tries again.
+		await db.transaction().execute((tx) => seedDemo(tx, creds));
 		console.log('seed: demo workspace created');
 	} finally {
 		await db.destroy();

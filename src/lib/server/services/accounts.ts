@@ -6,6 +6,7 @@ import { hashToken, newToken } from '../tokens';
 import { createWorkspace } from '../repo/workspaces';
 import { logActivity } from '../repo/activity';
 import { ValidationError } from '../errors';
+import { inTransaction } from '../db/transaction';
 
 export const normaliseEmail = (e: string): string => e.trim().toLowerCase();
 
@@ -17,7 +18,7 @@ export async function findUserByEmail(db: Executor, email: string) {
 export async function signUp(db: Executor, input: { email: string; password: string; name: string }): Promise<{ userId: string; workspaceId: string }> {
 	const email = normaliseEmail(input.email);
 	const hash = await hashPassword(input.password);
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const existing = await tx.selectFrom('User').select(['id']).where('email', '=', email).executeTakeFirst();
 		if (existing) {
 			const cred = await tx.selectFrom('password_credential').select('user_id').where('user_id', '=', existing.id).executeTakeFirst();
@@ -72,7 +73,7 @@ export async function createPasswordReset(db: Executor, email: string): Promise<
 
 export async function resetPassword(db: Executor, token: string, password: string): Promise<string> {
 	const hash = await hashPassword(password);
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const row = await tx
 			.updateTable('password_reset')
 			.set({ used_at: new Date() })
@@ -96,7 +97,7 @@ const INVITE_DAYS = 7;
 
 export async function createInvitation(db: Executor, workspaceId: string, invitedBy: string, email: string, role: Role) {
 	const { token, hash } = newToken();
-	const inv = await db.transaction().execute(async (tx) => {
+	const inv = await inTransaction(db, async (tx) => {
 		const row = await tx
 			.insertInto('invitation')
 			.values({ workspace_id: workspaceId, email: normaliseEmail(email), role, token_hash: hash, expires_at: new Date(Date.now() + INVITE_DAYS * 86_400_000), invited_by: invitedBy })
@@ -123,7 +124,7 @@ export async function findInvitation(db: Executor, token: string) {
 
 /** Single use: the first accept wins; the invitee joins with the invited role (never lowering an existing one). */
 export async function acceptInvitation(db: Executor, token: string, userId: string, userEmail: string): Promise<string> {
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const inv = await tx
 			.updateTable('invitation')
 			.set({ accepted_at: new Date(), accepted_by: userId })

@@ -7,6 +7,7 @@ import type { Executor } from '../db';
 import { NotFoundError, ValidationError } from '../errors';
 import { logActivity } from '../repo/activity';
 import type { Actor } from './actor';
+import { inTransaction } from '../db/transaction';
 
 export interface BundleRecord {
 	id: string;
@@ -77,7 +78,7 @@ export async function createBundle(db: Executor, actor: Actor, req: BundleReques
 	const sha256 = await sha256Hex(bytes);
 	const stamp = createdAt.slice(0, 16).replace(/[-:T]/g, '');
 	const fileName = `kappaline-${moleculeName.replace(/[^\w-]+/g, '-').replace(/^-|-$/g, '').slice(0, 40) || 'molecule'}-${kindOf(req).replace('+', '-')}-${stamp}.zip`;
-	const row = await db.transaction().execute(async (tx) => {
+	const row = await inTransaction(db, async (tx) => {
 		const r = await tx
 			.insertInto('bundle')
 			.values({

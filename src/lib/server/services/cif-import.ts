@@ -9,6 +9,7 @@ import { NotFoundError, StaleVersionError, ValidationError } from '../errors';
 import { logActivity } from '../repo/activity';
 import type { Actor } from './actor';
 import { toPolymorph, type Polymorph } from './polymorphs';
+import { inTransaction } from '../db/transaction';
 
 export interface StoredCif {
 	fileName: string;
@@ -80,7 +81,7 @@ function snapshot(p: Polymorph) {
 export async function importPolymorphFromCif(db: Executor, actor: Actor, input: CifImportInput): Promise<CifImportResult> {
 	const { parsed, fields } = readCif(input.cif, input.fileName);
 	const label = input.label || fields.label;
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const m = await tx.selectFrom('molecule').select(['formula', 'name']).where('workspace_id', '=', actor.workspaceId).where('id', '=', input.moleculeId).executeTakeFirst();
 		if (!m) throw new NotFoundError('molecule');
 		const r = await tx
@@ -134,7 +135,7 @@ export async function importPolymorphFromCif(db: Executor, actor: Actor, input: 
 /** Replaces a polymorph's cell, space group, Z and temperature from a CIF and stores the file. */
 export async function replaceCellFromCif(db: Executor, actor: Actor, polymorphId: string, expectedVersion: number, input: CifReplaceInput): Promise<CifImportResult> {
 	const { parsed, fields } = readCif(input.cif, input.fileName);
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const current = await tx.selectFrom('polymorph').selectAll().where('workspace_id', '=', actor.workspaceId).where('id', '=', polymorphId).forUpdate().executeTakeFirst();
 		if (!current) throw new NotFoundError('polymorph');
 		if (current.version !== expectedVersion) throw new StaleVersionError('polymorph');

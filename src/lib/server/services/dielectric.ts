@@ -17,6 +17,7 @@ import { DependentsError, NotFoundError, StaleVersionError, ValidationError } fr
 import { logActivity } from '../repo/activity';
 import type { Actor } from './actor';
 import { getPolymorph } from './polymorphs';
+import { inTransaction } from '../db/transaction';
 
 /** Shown wherever a static constant is entered or chosen. */
 export const STATIC_EPSILON_NOTE =
@@ -245,7 +246,7 @@ const KIND_LABEL: Record<DielectricKind, string> = { scalar: 'scalar', tensor: '
 export async function addDielectricEntry(db: Executor, actor: Actor, polymorphId: string, input: DielectricEntryInput): Promise<DielectricEntry> {
 	const polymorph = await getPolymorph(db, actor.workspaceId, polymorphId);
 	const ev = evaluateEntry(input, { volumeA3: polymorph.derived.volumeA3, z: polymorph.z, volumePerMoleculeA3: polymorph.derived.volumePerMoleculeA3 });
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		await lockPolymorph(tx, actor.workspaceId, polymorphId);
 		const r = await tx
 			.insertInto('dielectric_entry')
@@ -280,7 +281,7 @@ export async function addDielectricEntry(db: Executor, actor: Actor, polymorphId
 
 /** Deletes an entry; refused while it is the epsilon in use, or when the caller's version is stale. */
 export async function deleteDielectricEntry(db: Executor, actor: Actor, polymorphId: string, entryId: string, expectedVersion?: number): Promise<void> {
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const p = await lockPolymorph(tx, actor.workspaceId, polymorphId);
 		const e = await tx.selectFrom('dielectric_entry').selectAll().where('workspace_id', '=', actor.workspaceId).where('polymorph_id', '=', polymorphId).where('id', '=', entryId).executeTakeFirst();
 		if (!e) throw new NotFoundError('dielectric entry');
@@ -330,7 +331,7 @@ export async function epsilonInUseByPolymorph(db: Executor, workspaceId: string,
  * When a choice exists, the caller must send the version of it they read.
  */
 export async function chooseEpsilon(db: Executor, actor: Actor, polymorphId: string, input: EpsilonChoiceInput): Promise<EpsilonInUse> {
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const p = await lockPolymorph(tx, actor.workspaceId, polymorphId);
 		const entry = await tx.selectFrom('dielectric_entry').selectAll().where('workspace_id', '=', actor.workspaceId).where('polymorph_id', '=', polymorphId).where('id', '=', input.entryId).executeTakeFirst();
 		if (!entry) throw new ValidationError('that dielectric entry does not belong to this polymorph', 'entryId');

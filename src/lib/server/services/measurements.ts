@@ -3,6 +3,7 @@ import type { Executor } from '../db';
 import { logActivity } from '../repo/activity';
 import { NotFoundError } from '../errors';
 import type { Actor } from './actor';
+import { inTransaction } from '../db/transaction';
 
 export interface Measurement {
 	id: string;
@@ -59,7 +60,7 @@ export async function listMeasurements(db: Executor, workspaceId: string, polymo
 }
 
 export async function addMeasurement(db: Executor, actor: Actor, polymorphId: string, input: MeasurementInput): Promise<Measurement> {
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const p = await tx.selectFrom('polymorph').select(['label']).where('workspace_id', '=', actor.workspaceId).where('id', '=', polymorphId).executeTakeFirst();
 		if (!p) throw new NotFoundError('polymorph');
 		const r = await tx
@@ -85,7 +86,7 @@ export async function addMeasurement(db: Executor, actor: Actor, polymorphId: st
 }
 
 export async function deleteMeasurement(db: Executor, actor: Actor, polymorphId: string, id: string): Promise<void> {
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const r = await tx.deleteFrom('measurement').where('workspace_id', '=', actor.workspaceId).where('polymorph_id', '=', polymorphId).where('id', '=', id).returning(['method']).executeTakeFirst();
 		if (!r) throw new NotFoundError('measurement');
 		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'polymorph', entityId: polymorphId, action: 'update', summary: `removed a ${r.method} measurement` });

@@ -6,6 +6,7 @@ import type { MoleculeRow } from '../db/schema';
 import { logActivity } from '../repo/activity';
 import { DependentsError, NotFoundError, StaleVersionError, ValidationError } from '../errors';
 import type { Actor } from './actor';
+import { inTransaction } from '../db/transaction';
 
 export interface Molecule {
 	id: string;
@@ -117,7 +118,7 @@ export async function getMolecule(db: Executor, workspaceId: string, id: string)
 
 export async function createMolecule(db: Executor, actor: Actor, input: MoleculeInput): Promise<Molecule> {
 	const { formula, atomCount } = checkGeometry(input);
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const r = await tx
 			.insertInto('molecule')
 			.values({
@@ -146,7 +147,7 @@ function snapshot(m: Molecule) {
 }
 
 export async function updateMolecule(db: Executor, actor: Actor, id: string, expectedVersion: number, patch: MoleculePatch): Promise<Molecule> {
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const current = await tx.selectFrom('molecule').selectAll().where('workspace_id', '=', actor.workspaceId).where('id', '=', id).forUpdate().executeTakeFirst();
 		if (!current) throw new NotFoundError('molecule');
 		if (current.version !== expectedVersion) throw new StaleVersionError('molecule');
@@ -194,7 +195,7 @@ export async function updateMolecule(db: Executor, actor: Actor, id: string, exp
 }
 
 export async function deleteMolecule(db: Executor, actor: Actor, id: string, expectedVersion?: number): Promise<void> {
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const current = await tx.selectFrom('molecule').selectAll().where('workspace_id', '=', actor.workspaceId).where('id', '=', id).forUpdate().executeTakeFirst();
 		if (!current) throw new NotFoundError('molecule');
 		if (expectedVersion !== undefined && current.version !== expectedVersion) throw new StaleVersionError('molecule');

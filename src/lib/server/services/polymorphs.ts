@@ -6,6 +6,7 @@ import type { PolymorphRow } from '../db/schema';
 import { logActivity } from '../repo/activity';
 import { NotFoundError, StaleVersionError, ValidationError } from '../errors';
 import type { Actor } from './actor';
+import { inTransaction } from '../db/transaction';
 
 export interface Polymorph {
 	id: string;
@@ -112,7 +113,7 @@ export async function getPolymorph(db: Executor, workspaceId: string, id: string
 
 export async function createPolymorph(db: Executor, actor: Actor, moleculeId: string, input: PolymorphInput): Promise<Polymorph> {
 	checkCell(input);
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const m = await moleculeFormula(tx, actor.workspaceId, moleculeId);
 		const r = await tx
 			.insertInto('polymorph')
@@ -143,7 +144,7 @@ export async function createPolymorph(db: Executor, actor: Actor, moleculeId: st
 }
 
 export async function updatePolymorph(db: Executor, actor: Actor, id: string, expectedVersion: number, patch: PolymorphPatch): Promise<Polymorph> {
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const current = await tx.selectFrom('polymorph').selectAll().where('workspace_id', '=', actor.workspaceId).where('id', '=', id).forUpdate().executeTakeFirst();
 		if (!current) throw new NotFoundError('polymorph');
 		if (current.version !== expectedVersion) throw new StaleVersionError('polymorph');
@@ -183,7 +184,7 @@ export async function updatePolymorph(db: Executor, actor: Actor, id: string, ex
 }
 
 export async function deletePolymorph(db: Executor, actor: Actor, id: string, expectedVersion?: number): Promise<void> {
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const current = await tx.selectFrom('polymorph').selectAll().where('workspace_id', '=', actor.workspaceId).where('id', '=', id).forUpdate().executeTakeFirst();
 		if (!current) throw new NotFoundError('polymorph');
 		if (expectedVersion !== undefined && current.version !== expectedVersion) throw new StaleVersionError('polymorph');

@@ -4,6 +4,7 @@ import type { Executor } from '../db';
 import { NotFoundError, ValidationError } from '../errors';
 import { logActivity } from '../repo/activity';
 import type { Actor } from './actor';
+import { inTransaction } from '../db/transaction';
 
 export interface RerunResult {
 	id: string;
@@ -59,7 +60,7 @@ function check(r: RerunInput) {
 
 export async function addReruns(db: Executor, actor: Actor, polymorphId: string, reruns: RerunInput[], source: 'typed' | 'engine-output', fileName: string | null = null): Promise<RerunResult[]> {
 	reruns.forEach(check);
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const p = await tx.selectFrom('polymorph').select('label').where('workspace_id', '=', actor.workspaceId).where('id', '=', polymorphId).executeTakeFirst();
 		if (!p) throw new NotFoundError('polymorph');
 		const rows = await tx

@@ -10,6 +10,7 @@ import type { ScanPointRow, TuningStudyRow } from '../db/schema-tuning';
 import { logActivity } from '../repo/activity';
 import { NotFoundError, StaleVersionError, ValidationError } from '../errors';
 import type { Actor } from './actor';
+import { inTransaction } from '../db/transaction';
 
 /** A stored analysis: exactly what tuningAnalysis returned when the result was saved. */
 export type StoredTuningResult = TuningAnalysis;
@@ -198,7 +199,7 @@ export async function listStudies(db: Executor, workspaceId: string, opts: { mol
 }
 
 export async function createStudy(db: Executor, actor: Actor, moleculeId: string, input: StudyInput): Promise<TuningStudy> {
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const m = await tx.selectFrom('molecule').select(['name', 'geometry_xyz']).where('workspace_id', '=', actor.workspaceId).where('id', '=', moleculeId).executeTakeFirst();
 		if (!m) throw new NotFoundError('molecule');
 		const r = await tx
@@ -227,7 +228,7 @@ export async function createStudy(db: Executor, actor: Actor, moleculeId: string
 }
 
 export async function updateStudy(db: Executor, actor: Actor, id: string, expectedVersion: number, patch: StudyPatch): Promise<TuningStudy> {
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const current = await studyRow(tx, actor.workspaceId, id, true);
 		if (current.version !== expectedVersion) throw new StaleVersionError('tuning study');
 		const before = toStudy(current, current.molecule_name);
@@ -260,7 +261,7 @@ export async function updateStudy(db: Executor, actor: Actor, id: string, expect
 }
 
 export async function deleteStudy(db: Executor, actor: Actor, id: string, expectedVersion?: number): Promise<void> {
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const current = await studyRow(tx, actor.workspaceId, id, true);
 		if (expectedVersion !== undefined && current.version !== expectedVersion) throw new StaleVersionError('tuning study');
 		await tx.deleteFrom('tuning_study').where('id', '=', id).execute();
@@ -270,7 +271,7 @@ export async function deleteStudy(db: Executor, actor: Actor, id: string, expect
 
 /** Makes this study the molecule's current tuned parameters (and no other). Needs a saved result with an optimum. */
 export async function markCurrent(db: Executor, actor: Actor, id: string, expectedVersion: number): Promise<TuningStudy> {
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const current = await studyRow(tx, actor.workspaceId, id, true);
 		if (current.version !== expectedVersion) throw new StaleVersionError('tuning study');
 		const s = toStudy(current, current.molecule_name);
@@ -348,7 +349,7 @@ export async function importPoints(
 	const key = opts.idempotencyKey?.trim();
 	if (key !== undefined && (key.length === 0 || key.length > 200)) throw new ValidationError('Idempotency-Key must be 1-200 characters', 'Idempotency-Key');
 	const requestHash = createHash('sha256').update(JSON.stringify(points)).digest('hex');
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const current = await studyRow(tx, actor.workspaceId, studyId, true);
 		if (key) {
 			const seen = await tx.selectFrom('tuning_idempotency_key').selectAll().where('study_id', '=', studyId).where('key', '=', key).executeTakeFirst();
@@ -410,7 +411,7 @@ async function bumpStudy(tx: Executor, actor: Actor, studyId: string) {
 
 /** Edits a point's gamma or energies (hartree); logged with before and after. */
 export function updatePoint(db: Executor, actor: Actor, pointId: string, expectedVersion: number, patch: PointPatch): Promise<StoredScanPoint> {
-	return db.transaction().execute((tx) => updatePointIn(tx, actor, pointId, expectedVersion, patch));
+	return inTransaction(db, (tx) => updatePointIn(tx, actor, pointId, expectedVersion, patch));
 }
 
 async function updatePointIn(tx: Executor, actor: Actor, pointId: string, expectedVersion: number, patch: PointPatch): Promise<StoredScanPoint> {
@@ -480,7 +481,7 @@ export interface SaveAnalysisInput {
  * stored points (the browser's numbers are not trusted) and stores it with its version and input hash.
  */
 export async function saveAnalysis(db: Executor, actor: Actor, studyId: string, expectedVersion: number, input: SaveAnalysisInput): Promise<TuningStudy> {
-	return db.transaction().execute(async (tx) => {
+	return inTransaction(db, async (tx) => {
 		const current = await studyRow(tx, actor.workspaceId, studyId, true);
 		if (current.version !== expectedVersion) throw new StaleVersionError('tuning study');
 		for (const x of input.exclusions ?? []) {

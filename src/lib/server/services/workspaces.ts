@@ -4,9 +4,10 @@ import { logActivity } from '../repo/activity';
 import { countOwners } from '../repo/workspaces';
 import { NotFoundError, StaleVersionError, ValidationError } from '../errors';
 import type { Actor } from './actor';
+import { inTransaction } from '../db/transaction';
 
 export async function changeRole(db: Executor, actor: Actor, userId: string, role: Role): Promise<void> {
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const m = await tx.selectFrom('membership').select('role').where('workspace_id', '=', actor.workspaceId).where('user_id', '=', userId).forUpdate().executeTakeFirst();
 		if (!m) throw new NotFoundError('member');
 		if (m.role === 'owner' && role !== 'owner' && (await countOwners(tx, actor.workspaceId)) <= 1)
@@ -17,7 +18,7 @@ export async function changeRole(db: Executor, actor: Actor, userId: string, rol
 }
 
 export async function removeMember(db: Executor, actor: Actor, userId: string): Promise<void> {
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const m = await tx.selectFrom('membership').select('role').where('workspace_id', '=', actor.workspaceId).where('user_id', '=', userId).forUpdate().executeTakeFirst();
 		if (!m) throw new NotFoundError('member');
 		if (m.role === 'owner' && (await countOwners(tx, actor.workspaceId)) <= 1) throw new ValidationError('the last owner cannot be removed', 'userId');
@@ -29,7 +30,7 @@ export async function removeMember(db: Executor, actor: Actor, userId: string): 
 export async function renameWorkspace(db: Executor, actor: Actor, name: string, expectedVersion: number): Promise<void> {
 	const clean = name.trim();
 	if (!clean || clean.length > 120) throw new ValidationError('a workspace name has 1 to 120 characters', 'name');
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const w = await tx.selectFrom('workspace').select(['name', 'version']).where('id', '=', actor.workspaceId).forUpdate().executeTakeFirst();
 		if (!w) throw new NotFoundError('workspace');
 		if (w.version !== expectedVersion) throw new StaleVersionError('workspace');
@@ -40,7 +41,7 @@ export async function renameWorkspace(db: Executor, actor: Actor, name: string, 
 
 /** Deletes the workspace and everything in it; the caller must have confirmed by typing its name. */
 export async function deleteWorkspace(db: Executor, actor: Actor, confirmName: string): Promise<void> {
-	await db.transaction().execute(async (tx) => {
+	await inTransaction(db, async (tx) => {
 		const w = await tx.selectFrom('workspace').select('name').where('id', '=', actor.workspaceId).forUpdate().executeTakeFirst();
 		if (!w) throw new NotFoundError('workspace');
 		if (w.name !== confirmName.trim()) throw new ValidationError(`type the workspace's name (${w.name}) to confirm`, 'confirm');
