@@ -6,6 +6,24 @@ const config = {
 	preprocess: vitePreprocess(),
 	kit: {
 		adapter: adapter({ out: 'build' }),
+		// Content-Security-Policy: SvelteKit adds nonces for its own inline scripts. 3Dmol.js compiles code at
+		// run time ('unsafe-eval'); uPlot and 3Dmol set element styles ('unsafe-inline' for styles only).
+		csp: {
+			mode: 'auto',
+			directives: {
+				'default-src': ['self'],
+				'script-src': ['self', 'unsafe-eval'],
+				'style-src': ['self', 'unsafe-inline'],
+				'img-src': ['self', 'data:', 'blob:'],
+				'font-src': ['self', 'data:'],
+				'connect-src': ['self'],
+				'worker-src': ['self', 'blob:'],
+				'object-src': ['none'],
+				'base-uri': ['self'],
+				'form-action': ['self'],
+				'frame-ancestors': ['none']
+			}
+		},
 		typescript: {
 			// Type-check the top-level folders too, by extending Kit's generated include list.
 			config(tsconfig) {

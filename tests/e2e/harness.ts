@@ -11,14 +11,23 @@ export const ARTIFACTS = join(process.cwd(), 'test-results', 'e2e');
 if (!APP_URL) throw new Error('APP_URL is not set (npm test sets it)');
 mkdirSync(ARTIFACTS, { recursive: true });
 
+/** Content-Security-Policy violations reported by any page of any context (the run fails on one). */
+export const cspViolations: string[] = [];
+
 export async function newContext(): Promise<BrowserContext> {
-	return chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'kappaline-e2e-')), {
+	const ctx = await chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'kappaline-e2e-')), {
 		executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
 		headless: true,
 		baseURL: APP_URL,
 		viewport: { width: 1280, height: 900 },
 		args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--disable-dev-shm-usage']
 	});
+	const watch = (p: Page) => p.on('console', (m) => {
+		if (/Content Security Policy|Refused to (load|execute|apply|connect|frame)/.test(m.text())) cspViolations.push(`${p.url()}: ${m.text()}`);
+	});
+	ctx.pages().forEach(watch);
+	ctx.on('page', watch);
+	return ctx;
 }
 
 export async function shot(page: Page, name: string): Promise<void> {

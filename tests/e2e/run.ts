@@ -1,7 +1,7 @@
 // End-to-end: sign up, sign in by e-mail link, create a molecule from an XYZ upload, add a polymorph,
 // invite a viewer, and check that the viewer sees read-only pages. Screenshots go to test-results/e2e.
 import type { Page } from 'playwright-core';
-import { assert, firstLink, newContext, runSteps, shot, step, waitForMail } from './harness';
+import { assert, cspViolations, firstLink, newContext, runSteps, shot, step, waitForMail } from './harness';
 import { registerDielectricSteps } from './steps-dielectric';
 import { registerTuningSteps } from './steps-tuning';
 
@@ -204,8 +204,9 @@ step('the invitee signs up, joins as viewer and finds the pages read-only', asyn
 registerDielectricSteps(consoleErrors);
 registerTuningSteps({ user: alice, workspaceUrl: () => workspaceUrl, consoleErrors });
 
-step('no uncaught errors in the pages', async () => {
+step('no uncaught errors and no Content-Security-Policy violations in the pages', async () => {
 	assert(consoleErrors.length === 0, `page errors: ${consoleErrors.join('; ')}`);
+	assert(cspViolations.length === 0, `CSP violations: ${cspViolations.join('; ')}`);
 });
 
 const failed = await runSteps(async (name) => shot(page, `failed-${name}`));

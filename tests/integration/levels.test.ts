@@ -8,6 +8,7 @@ import { dielectricEntryInput } from '../../src/lib/schemas/dielectric';
 import { createApiToken } from '../../src/lib/server/services/api-tokens';
 import { addDielectricEntry, chooseEpsilon } from '../../src/lib/server/services/dielectric';
 import { createStudy, importPoints, markCurrent, saveAnalysis } from '../../src/lib/server/services/tuning';
+import { listEstimates, saveEstimate } from '../../src/lib/server/services/estimates';
 import { appDb, teamFixture } from './fixtures';
 import { probe } from './http-helpers';
 
@@ -78,5 +79,21 @@ describe('levels API', () => {
 		const inEv = await probe(url('/reruns'), { method: 'POST', headers: auth(), body: JSON.stringify({ results: [{ epsilon: 3.2, alpha: 0.2, gammaBohrInv: 0.21, homoHartree: -5.4 }] }) });
 		expect(inEv.status).toBe(400);
 		expect(JSON.parse(inEv.body).error.message).toMatch(/was it given in eV/);
+	});
+
+	it('a saved estimate records its sources and turns stale when the epsilon in use changes', async () => {
+		const actor = { userId: fx.owner.id, workspaceId: fx.ws, role: 'owner' as const };
+		const saved = await saveEstimate(db, actor, fx.polymorph.id, 'bulk, eps in use', {});
+		expect(saved.sources.epsilon).toBe(3.2);
+		let [first] = await listEstimates(db, fx.ws, fx.polymorph.id);
+		expect(first.id).toBe(saved.id);
+		expect(first.staleReasons).toEqual([]);
+		const other = await addDielectricEntry(db, actor, fx.polymorph.id, dielectricEntryInput.parse({ kind: 'scalar', frequency: 'electronic', epsilon: 3.6, method: 'remeasured' }));
+		const current = await db.selectFrom('polymorph_epsilon').select('version').where('polymorph_id', '=', fx.polymorph.id).executeTakeFirstOrThrow();
+		await chooseEpsilon(db, actor, fx.polymorph.id, { entryId: other.id, reason: 'newer value', version: current.version });
+		[first] = await listEstimates(db, fx.ws, fx.polymorph.id);
+		expect(first.staleReasons).toContain('another epsilon is now in use');
+		expect(first.result.gapSolidEv).toBeCloseTo(saved.result.gapSolidEv, 12);
+		expect(first.current!.gapSolidEv).toBeLessThan(saved.result.gapSolidEv);
 	});
 });

@@ -75,3 +75,15 @@ export function formFailure<T extends Record<string, unknown>>(e: unknown, value
 	if (e instanceof NotFoundError) return fail(404, { values, message: e.message, errors: {} });
 	throw e;
 }
+
+/** Largest raw upload (engine outputs, bundle zips) the API takes. */
+export const MAX_UPLOAD_BYTES = 50_000_000;
+
+/** A raw-body upload: its bytes and a file name (?name=, or guessed from the content type), size-checked. */
+export async function readUpload(event: RequestEvent): Promise<{ name: string; bytes: Uint8Array }> {
+	const name = event.url.searchParams.get('name') ?? (event.request.headers.get('content-type')?.includes('zip') ? 'outputs.zip' : 'output.out');
+	const bytes = new Uint8Array(await event.request.arrayBuffer());
+	if (bytes.length === 0) throw new ValidationError('the upload is empty', 'body');
+	if (bytes.length > MAX_UPLOAD_BYTES) throw new ValidationError(`the upload is over the limit of ${MAX_UPLOAD_BYTES / 1e6} MB`, 'body');
+	return { name, bytes };
+}

@@ -53,6 +53,7 @@ export const policy: Record<string, Need> = {
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/addMeasurement': 'editor',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/deleteMeasurement': 'editor',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/addRerun': 'editor',
+	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/saveEstimate': 'editor',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/uploadOutputs': 'editor',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/deleteRerun': 'editor',
 	'/(app)/w/[ws=uuid]/members GET': 'viewer',

@@ -53,7 +53,21 @@ export interface RerunResultTable {
 	created_at: Timestamp;
 }
 
+/** A stored solid-state estimate with the sources it was computed from. */
+export interface SolidEstimateTable {
+	id: Generated<string>;
+	workspace_id: string;
+	polymorph_id: string;
+	label: string;
+	options: ColumnType<unknown, string, string>;
+	sources: ColumnType<unknown, string, string>;
+	result: ColumnType<unknown, string, string>;
+	created_by: string | null;
+	created_at: Timestamp;
+}
+
 export interface LevelsTables {
+	solid_estimate: SolidEstimateTable;
 	measurement: MeasurementTable;
 	bundle: BundleTable;
 	rerun_result: RerunResultTable;

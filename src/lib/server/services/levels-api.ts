@@ -33,6 +33,7 @@ export async function polymorphLevels(db: Executor, workspaceId: string, polymor
 	try {
 		return {
 			polymorphId: p.id,
+			volumePerMoleculeA3: p.derived.volumePerMoleculeA3,
 			tuned: ctx.tuned,
 			epsilonSource: opts.epsilon !== undefined ? 'override' : 'epsilon in use',
 			epsilonInUse: ctx.epsilonInUse,

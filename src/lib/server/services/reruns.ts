@@ -1,4 +1,4 @@
-import { ArchiveError, ingestOutputs, ManifestError, type IngestProblem } from '$lib/formats/bundle';
+import { ArchiveError, ingestOutputs, ManifestError, type IngestProblem, type IngestResult } from '$lib/formats/bundle';
 import { HARTREE_EV } from '$lib/science/units';
 import type { Executor } from '../db';
 import { NotFoundError, ValidationError } from '../errors';
@@ -84,13 +84,7 @@ export async function deleteRerun(db: Executor, actor: Actor, polymorphId: strin
  * nested archives). Nothing is stored when no screened result could be read.
  */
 export async function ingestReruns(db: Executor, actor: Actor, polymorphId: string, fileName: string, bytes: Uint8Array): Promise<{ stored: RerunResult[]; problems: IngestProblem[] }> {
-	let result;
-	try {
-		result = await ingestOutputs(fileName.toLowerCase().endsWith('.zip') ? bytes : { name: fileName, bytes });
-	} catch (e) {
-		if (e instanceof ArchiveError || e instanceof ManifestError) throw new ValidationError(e.message, 'file');
-		throw e;
-	}
+	const result = await readOutputs(fileName, bytes);
 	if (!result.screened.length) {
 		const why = result.problems.map((p) => p.message).slice(0, 5).join('; ');
 		throw new ValidationError(`no screened rerun result found in ${fileName}${why ? `: ${why}` : ''}`, 'file');
@@ -104,4 +98,14 @@ export async function ingestReruns(db: Executor, actor: Actor, polymorphId: stri
 		fileName
 	);
 	return { stored, problems: result.problems };
+}
+
+/** Reads uploaded engine outputs (a zip, or one output file); archive and manifest refusals become field errors. */
+export async function readOutputs(fileName: string, bytes: Uint8Array): Promise<IngestResult> {
+	try {
+		return await ingestOutputs(fileName.toLowerCase().endsWith('.zip') ? bytes : { name: fileName, bytes });
+	} catch (e) {
+		if (e instanceof ArchiveError || e instanceof ManifestError) throw new ValidationError(e.message, 'file');
+		throw e;
+	}
 }

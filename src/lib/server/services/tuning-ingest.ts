@@ -1,7 +1,8 @@
-import { ArchiveError, ingestOutputs, ManifestError, type IngestProblem } from '$lib/formats/bundle';
+import type { IngestProblem } from '$lib/formats/bundle';
 import type { Executor } from '../db';
 import { ValidationError } from '../errors';
 import type { Actor } from './actor';
+import { readOutputs } from './reruns';
 import { importPoints } from './tuning';
 
 /**
@@ -17,13 +18,7 @@ export async function ingestScanOutputs(
 	bytes: Uint8Array,
 	opts: { idempotencyKey?: string } = {}
 ): Promise<{ inserted: number; replayed: boolean; problems: IngestProblem[] }> {
-	let result;
-	try {
-		result = await ingestOutputs(fileName.toLowerCase().endsWith('.zip') ? bytes : { name: fileName, bytes });
-	} catch (e) {
-		if (e instanceof ArchiveError || e instanceof ManifestError) throw new ValidationError(e.message, 'file');
-		throw e;
-	}
+	const result = await readOutputs(fileName, bytes);
 	if (!result.scanPoints.length) {
 		const why = result.problems.map((p) => `${p.file}: ${p.message}`).slice(0, 5).join('; ');
 		throw new ValidationError(`no tuning-scan result found in ${fileName}${why ? ` (${why})` : ''}`, 'file');

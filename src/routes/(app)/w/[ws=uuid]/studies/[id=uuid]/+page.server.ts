@@ -4,7 +4,7 @@ import { ScanTableError, applyMapping, parseScanTable, type ScanMapping } from '
 import { requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { NotFoundError, ValidationError } from '$lib/server/errors';
-import { formFailure } from '$lib/server/http';
+import { formFailure, MAX_UPLOAD_BYTES } from '$lib/server/http';
 import { listActivity } from '$lib/server/repo/activity';
 import { exclusionInput, studyInput, tuningObjective } from '$lib/schemas/tuning';
 import { deleteStudy, getStudy, importPoints, markCurrent, saveAnalysis, setPointExclusion, updatePoint, updateStudy } from '$lib/server/services/tuning';
@@ -85,7 +85,7 @@ export const actions: Actions = {
 		const file = (await event.request.formData()).get('outputs');
 		try {
 			if (!(file instanceof File) || file.size === 0) throw new ValidationError('choose NWChem outputs (.out) or the bundle zip with the outputs beside the decks', 'outputs');
-			if (file.size > 50_000_000) throw new ValidationError(`the upload is ${(file.size / 1e6).toFixed(1)} MB, over the limit of 50 MB`, 'outputs');
+			if (file.size > MAX_UPLOAD_BYTES) throw new ValidationError(`the upload is ${(file.size / 1e6).toFixed(1)} MB, over the limit of ${MAX_UPLOAD_BYTES / 1e6} MB`, 'outputs');
 			const r = await ingestScanOutputs(db(), actor, event.params.id, file.name, new Uint8Array(await file.arrayBuffer()));
 			return { ingested: r.inserted, problems: r.problems.map((p) => `${p.file}: ${p.message}`) };
 		} catch (e) {

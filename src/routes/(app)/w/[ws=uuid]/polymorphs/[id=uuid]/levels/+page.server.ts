@@ -3,11 +3,13 @@ import { z } from 'zod';
 import { requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { NotFoundError } from '$lib/server/errors';
-import { formFailure } from '$lib/server/http';
+import { formFailure, MAX_UPLOAD_BYTES } from '$lib/server/http';
 import { measurementInput } from '$lib/schemas/measurement';
 import { levelsContext } from '$lib/server/services/levels';
 import { addMeasurement, deleteMeasurement } from '$lib/server/services/measurements';
 import { listBundles } from '$lib/server/services/bundles';
+import { listEstimates, saveEstimate } from '$lib/server/services/estimates';
+import { levelsQuery, substrateOf } from '$lib/schemas/levels';
 import { addReruns, deleteRerun, ingestReruns, listReruns } from '$lib/server/services/reruns';
 import { HARTREE_EV } from '$lib/science/units';
 import { ValidationError } from '$lib/server/errors';
@@ -34,8 +36,8 @@ export const load: PageServerLoad = async (event) => {
 		throw e;
 	}
 	const context = await levelsContext(db(), event.params.ws, polymorph.id, polymorph.moleculeId);
-	const [bundles, reruns] = await Promise.all([listBundles(db(), event.params.ws, { polymorphId: polymorph.id }), listReruns(db(), event.params.ws, polymorph.id)]);
-	return { polymorph, ...context, bundles, reruns };
+	const [bundles, reruns, estimates] = await Promise.all([listBundles(db(), event.params.ws, { polymorphId: polymorph.id }), listReruns(db(), event.params.ws, polymorph.id), listEstimates(db(), event.params.ws, polymorph.id)]);
+	return { polymorph, ...context, bundles, reruns, estimates };
 };
 
 export const actions: Actions = {
@@ -48,6 +50,17 @@ export const actions: Actions = {
 			return formFailure(e, values);
 		}
 		return { saved: 'measurement' };
+	},
+	saveEstimate: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'editor');
+		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
+		try {
+			const q = levelsQuery.parse({ epsilon: values.epsilon, radius: values.radius, substrateEpsilon: values.substrateEpsilon || undefined, distance: values.substrateEpsilon ? values.distance : undefined });
+			await saveEstimate(db(), actor, event.params.id, values.label ?? '', { epsilon: q.epsilon, radiusA: q.radius, substrate: substrateOf(q) });
+		} catch (e) {
+			return formFailure(e, values);
+		}
+		return { saved: 'estimate' };
 	},
 	addRerun: async (event) => {
 		const actor = await requireRole(event, event.params.ws, 'editor');
@@ -67,7 +80,7 @@ export const actions: Actions = {
 		const file = form.get('outputs');
 		try {
 			if (!(file instanceof File) || file.size === 0) throw new ValidationError('choose an NWChem output (.out) or a bundle zip with the outputs beside the decks', 'outputs');
-			if (file.size > 50_000_000) throw new ValidationError(`the upload is ${(file.size / 1e6).toFixed(1)} MB, over the limit of 50 MB`, 'outputs');
+			if (file.size > MAX_UPLOAD_BYTES) throw new ValidationError(`the upload is ${(file.size / 1e6).toFixed(1)} MB, over the limit of ${MAX_UPLOAD_BYTES / 1e6} MB`, 'outputs');
 			const r = await ingestReruns(db(), actor, event.params.id, file.name, new Uint8Array(await file.arrayBuffer()));
 			return { saved: 'outputs', stored: r.stored.length, problems: r.problems.map((p) => `${p.file}: ${p.message}`) };
 		} catch (e) {
