@@ -147,6 +147,9 @@ step('solid-state levels: screened parameters, Born estimate, sweep chart, measu
 	const download = page.waitForEvent('download');
 	await page.getByRole('button', { name: 'Download SVG' }).click();
 	assert((await download).suggestedFilename().endsWith('.svg'), 'diagram SVG not downloaded');
+	await page.getByRole('button', { name: 'Preview files' }).click();
+	await page.getByTestId('bundle-preview').getByRole('button', { name: 'manifest.json' }).click();
+	await page.getByTestId('bundle-preview').getByText('"schemaVersion": 1').waitFor();
 	const zip = page.waitForEvent('download');
 	await page.getByTestId('bundle-form').getByRole('button', { name: /Download rerun bundle/ }).click();
 	assert((await zip).suggestedFilename().endsWith('.zip'), 'rerun bundle not downloaded');

@@ -42,3 +42,19 @@ export function parseNumberList(text: string): number[] {
 		return v;
 	});
 }
+
+/** The bundle request from a page form (numbers as text, lists as "0.1, 0.2" or FROM:TO:STEP). */
+export function bundleRequestFromForm(f: Record<string, string>): BundleRequest {
+	const eps = f.epsilons ? parseNumberList(f.epsilons) : [];
+	return bundleRequest.parse({
+		moleculeId: f.moleculeId,
+		polymorphId: f.polymorphId || undefined,
+		studyId: f.studyId || undefined,
+		alpha: f.alpha,
+		tuningGammas: f.tuningGammas ? parseNumberList(f.tuningGammas) : undefined,
+		screened: eps.length ? { gammaBohrInv: f.gamma, epsilons: eps, epsilonSource: f.epsilonSource || undefined } : undefined,
+		basis: f.basis || undefined,
+		memoryMb: f.memoryMb || undefined,
+		cores: f.cores || undefined
+	});
+}

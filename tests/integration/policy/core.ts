@@ -37,6 +37,7 @@ export const policy: Record<string, Need> = {
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid] ?/delete': 'editor',
 	'/(app)/w/[ws=uuid]/activity GET': 'viewer',
 	'/(app)/w/[ws=uuid]/bundles POST': 'editor',
+	'/(app)/w/[ws=uuid]/bundles/preview POST': 'viewer',
 	'/(app)/w/[ws=uuid]/bundles/[id=uuid] GET': 'viewer',
 	'/api/v1/workspaces/[ws=uuid]/bundles GET': 'viewer',
 	'/api/v1/workspaces/[ws=uuid]/polymorphs/[id=uuid]/levels GET': 'viewer',

@@ -134,3 +134,15 @@ export async function downloadBundle(db: Executor, workspaceId: string, id: stri
 		throw new ValidationError('this bundle can no longer be rebuilt identically (the molecule’s geometry or the app changed since); make a new one');
 	return { fileName: r.file_name, bytes };
 }
+
+/** The files a bundle would hold (path, purpose, size, SHA-256, text), for a preview before download. Stores nothing. */
+export async function previewBundle(db: Executor, workspaceId: string, req: BundleRequest) {
+	const { input } = await bundleInput(db, workspaceId, req, new Date().toISOString());
+	try {
+		const plan = await planBundle(input);
+		return plan.files.map((f) => ({ path: f.path, role: f.role, purpose: f.purpose, bytes: f.bytes, sha256: f.sha256, text: f.text }));
+	} catch (e) {
+		if (e instanceof DeckInputError || e instanceof BundleInputError) throw new ValidationError(e.message, (e as { field?: string }).field);
+		throw e;
+	}
+}

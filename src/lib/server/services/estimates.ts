@@ -34,13 +34,12 @@ export interface StoredEstimate {
 async function compute(db: Executor, workspaceId: string, polymorphId: string, options: LevelsOptions) {
 	const r = await polymorphLevels(db, workspaceId, polymorphId, options);
 	const study = await db.selectFrom('tuning_study').select('result_input_hash').where('id', '=', r.tuned.studyId).executeTakeFirst();
-	const p = { v: r.volumePerMoleculeA3 };
 	const sources: Sources = {
 		studyId: r.tuned.studyId,
 		studyResultHash: study?.result_input_hash ?? null,
 		epsilon: r.input.epsilon,
 		epsilonEntryId: options.epsilon === undefined ? (r.epsilonInUse?.entryId ?? null) : null,
-		volumePerMoleculeA3: p.v,
+		volumePerMoleculeA3: r.volumePerMoleculeA3,
 		codeVersion: ESTIMATE_VERSION
 	};
 	return { estimate: r.estimate, sources };
