@@ -2,25 +2,12 @@
 // substrate image-charge term) and one solid-state estimate per value, as the levels page recomputes on
 // every keystroke; baseline in the same run: a plain loop computing 1/epsilon for the same values.
 // Target: well within one frame (< 16 ms). Run with `npm run bench`.
-import { performance } from 'node:perf_hooks';
+import { time } from './timing';
 import { epsilonSweep, solidStateEstimate } from '../src/lib/science/screening';
 
 const N = 1000;
 const epsilons = Array.from({ length: N }, (_, i) => 1 + (5 * i) / (N - 1));
 const input = { alpha: 0.2, ipGasEv: 6.55, eaGasEv: 1.35, radiusA: 4.3, epsilons, imageCharge: { distanceA: 3.5, substrateEpsilon: 'metal' as const } };
-
-function time(fn: () => unknown, minMs = 1000) {
-	for (let i = 0; i < 5; i++) fn();
-	const samples: number[] = [];
-	const t0 = performance.now();
-	while (performance.now() - t0 < minMs || samples.length < 20) {
-		const t = performance.now();
-		fn();
-		samples.push(performance.now() - t);
-	}
-	samples.sort((a, b) => a - b);
-	return { medianMs: samples[Math.floor(samples.length / 2)], runs: samples.length };
-}
 
 let sink = 0;
 const base = time(() => {

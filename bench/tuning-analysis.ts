@@ -2,7 +2,7 @@
 // chart curves, refined grid, input fingerprint) of a 1,000-point synthetic scan, against a baseline in
 // the same run: one plain loop over the points computing the J terms. Target: well under one frame
 // (< 5 ms) on the browser's main thread. Run with `npm run bench`.
-import { performance } from 'node:perf_hooks';
+import { time } from './timing';
 import { tuningAnalysis } from '../src/lib/science/tuning/tuning-analysis';
 import { syntheticScan } from '../src/lib/science/tuning/synthetic-scan.testdata';
 
@@ -14,19 +14,6 @@ function baseline(): number {
 	let s = 0;
 	for (const p of points) s += Math.abs(p.homoNeutralHartree! + p.eCationHartree! - p.eNeutralHartree!) + Math.abs(p.homoAnionHartree! + p.eNeutralHartree! - p.eAnionHartree!);
 	return s;
-}
-
-function time(fn: () => unknown, minMs = 1000): { medianMs: number; runs: number } {
-	for (let i = 0; i < 5; i++) fn(); // warm-up (JIT)
-	const samples: number[] = [];
-	const t0 = performance.now();
-	while (performance.now() - t0 < minMs || samples.length < 20) {
-		const t = performance.now();
-		fn();
-		samples.push(performance.now() - t);
-	}
-	samples.sort((a, b) => a - b);
-	return { medianMs: samples[Math.floor(samples.length / 2)], runs: samples.length };
 }
 
 const a = tuningAnalysis(points);

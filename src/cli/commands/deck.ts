@@ -4,16 +4,10 @@ import { parseArgs } from 'node:util';
 import { planBundle } from '$lib/formats/bundle';
 import { parseXyz, XyzParseError } from '$lib/formats/xyz';
 import pkg from '../../../package.json' with { type: 'json' };
+import { requiredNumber } from '../args';
 import { CliInputError, CliUsageError, type CliCommand } from '../types';
 
 const usage = 'kappaline deck nwchem --xyz FILE --charge Q --mult M --alpha A --gamma G [--epsilon E] [--basis NAME] [--scan FROM:TO:STEP] --out DIR';
-
-function num(name: string, v: string | undefined): number {
-	if (v === undefined) throw new CliUsageError(`--${name} is required`);
-	const n = Number(v);
-	if (v.trim() === '' || !Number.isFinite(n)) throw new CliInputError(`--${name} must be a number, got "${v}"`);
-	return n;
-}
 
 /** The same files as the web bundle (decks, scripts, README, manifest.json), written to a folder. */
 export const command: CliCommand = {
@@ -37,8 +31,8 @@ export const command: CliCommand = {
 			if (e instanceof XyzParseError) throw new CliInputError(`${values.xyz}: ${e.message}`);
 			throw new CliInputError(`${values.xyz}: ${(e as Error).message}`);
 		}
-		const alpha = num('alpha', values.alpha);
-		const gamma = num('gamma', values.gamma);
+		const alpha = requiredNumber('alpha', values.alpha);
+		const gamma = requiredNumber('gamma', values.gamma);
 		let tuning = null;
 		let screened = null;
 		if (values.scan !== undefined) {
@@ -49,13 +43,13 @@ export const command: CliCommand = {
 			tuning = { gammasBohrInv: Array.from({ length: n }, (_, i) => Number((parts[0] + i * parts[2]).toPrecision(12))), layout: 'per-state' as const };
 		} else {
 			if (values.epsilon === undefined) throw new CliUsageError('give --scan FROM:TO:STEP for a tuning scan, or --epsilon E for a screened rerun');
-			screened = { gammaBohrInv: gamma, epsilons: [num('epsilon', values.epsilon)] };
+			screened = { gammaBohrInv: gamma, epsilons: [requiredNumber('epsilon', values.epsilon)] };
 		}
 		let plan;
 		try {
 			plan = await planBundle({
 				engine: 'nwchem',
-				molecule: { name: values.name ?? values.xyz.replace(/^.*\//, '').replace(/\.xyz$/i, ''), atoms, charge: num('charge', values.charge), multiplicity: num('mult', values.mult) },
+				molecule: { name: values.name ?? values.xyz.replace(/^.*\//, '').replace(/\.xyz$/i, ''), atoms, charge: requiredNumber('charge', values.charge), multiplicity: requiredNumber('mult', values.mult) },
 				alpha,
 				tuning,
 				screened,

@@ -1,20 +1,11 @@
 import { parseArgs } from 'node:util';
 import { CAUTIONS, epsilonSweep, solidStateEstimate, type SolidStateEstimate } from '$lib/science/screening';
-import { CliInputError, CliUsageError, type CliCommand } from '../types';
+import { requiredNumber } from '../args';
+import { CliUsageError, type CliCommand } from '../types';
 
 const usage =
 	'kappaline levels --alpha A --gamma G (--epsilon E | --epsilon-range FROM:TO:STEP) --ip IP_EV --ea EA_EV ' +
 	'[--radius A | --volume-per-molecule A3] [--substrate-epsilon ES|metal --distance Z] [--json]';
-
-function num(name: string, v: string | undefined, required = true): number | undefined {
-	if (v === undefined) {
-		if (required) throw new CliUsageError(`--${name} is required`);
-		return undefined;
-	}
-	const n = Number(v);
-	if (v.trim() === '' || !Number.isFinite(n)) throw new CliInputError(`--${name} must be a number, got "${v}"`);
-	return n;
-}
 
 const pick = (e: SolidStateEstimate, epsilon: number) => ({
 	epsilon,
@@ -57,18 +48,18 @@ export const command: CliCommand = {
 		} catch (e) {
 			throw new CliUsageError((e as Error).message);
 		}
-		const alpha = num('alpha', values.alpha)!;
-		const gamma = num('gamma', values.gamma)!;
-		const ip = num('ip', values.ip)!;
-		const ea = num('ea', values.ea)!;
+		const alpha = requiredNumber('alpha', values.alpha);
+		const gamma = requiredNumber('gamma', values.gamma);
+		const ip = requiredNumber('ip', values.ip);
+		const ea = requiredNumber('ea', values.ea);
 		if ((values.radius === undefined) === (values['volume-per-molecule'] === undefined))
 			throw new CliUsageError('give exactly one of --radius (Å) or --volume-per-molecule (Å^3)');
-		const cavity = values.radius !== undefined ? { radiusA: num('radius', values.radius)! } : { volumePerMoleculeA3: num('volume-per-molecule', values['volume-per-molecule'])! };
+		const cavity = values.radius !== undefined ? { radiusA: requiredNumber('radius', values.radius) } : { volumePerMoleculeA3: requiredNumber('volume-per-molecule', values['volume-per-molecule']) };
 		let substrate: { distanceA: number; epsilon: number | 'metal' } | null = null;
 		if (values['substrate-epsilon'] !== undefined || values.distance !== undefined) {
 			if (values['substrate-epsilon'] === undefined || values.distance === undefined) throw new CliUsageError('--substrate-epsilon and --distance go together');
-			const es = values['substrate-epsilon'] === 'metal' ? ('metal' as const) : num('substrate-epsilon', values['substrate-epsilon'])!;
-			substrate = { distanceA: num('distance', values.distance)!, epsilon: es };
+			const es = values['substrate-epsilon'] === 'metal' ? ('metal' as const) : requiredNumber('substrate-epsilon', values['substrate-epsilon']);
+			substrate = { distanceA: requiredNumber('distance', values.distance), epsilon: es };
 		}
 		if ((values.epsilon === undefined) === (values['epsilon-range'] === undefined)) throw new CliUsageError('give exactly one of --epsilon or --epsilon-range FROM:TO:STEP');
 
@@ -76,11 +67,11 @@ export const command: CliCommand = {
 		if (values['epsilon-range'] !== undefined) {
 			const parts = values['epsilon-range'].split(':');
 			if (parts.length !== 3) throw new CliUsageError('--epsilon-range is FROM:TO:STEP, e.g. 1:5:0.5');
-			const [from, to, step] = parts.map((p, i) => num(['epsilon-range FROM', 'epsilon-range TO', 'epsilon-range STEP'][i], p)!);
+			const [from, to, step] = parts.map((p, i) => requiredNumber(['epsilon-range FROM', 'epsilon-range TO', 'epsilon-range STEP'][i], p));
 			// The sweep routine validates the grid (step > 0, TO >= FROM, row limit) with specific messages.
 			epsilons = epsilonSweep({ alpha, ipGasEv: ip, eaGasEv: ea, radiusA: 1, epsilons: { from, to, step } }).rows.map((r) => r.epsilon);
 		} else {
-			epsilons = [num('epsilon', values.epsilon)!];
+			epsilons = [requiredNumber('epsilon', values.epsilon)];
 		}
 		const rows = epsilons.map((epsilon) => pick(solidStateEstimate({ alpha, gammaBohrInv: gamma, ipGasEv: ip, eaGasEv: ea, epsilon, cavity, substrate }), epsilon));
 
