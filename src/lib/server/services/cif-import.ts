@@ -8,7 +8,7 @@ import type { Executor } from '../db';
 import { NotFoundError, StaleVersionError, ValidationError } from '../errors';
 import { logActivity } from '../repo/activity';
 import type { Actor } from './actor';
-import { toPolymorph, type Polymorph } from './polymorphs';
+import { cellColumns, toPolymorph, type Polymorph } from './polymorphs';
 import { inTransaction } from '../db/transaction';
 
 export interface StoredCif {
@@ -90,16 +90,7 @@ export async function importPolymorphFromCif(db: Executor, actor: Actor, input: 
 				workspace_id: actor.workspaceId,
 				molecule_id: input.moleculeId,
 				label,
-				space_group: fields.spaceGroup,
-				a_a: fields.a,
-				b_a: fields.b,
-				c_a: fields.c,
-				alpha_deg: fields.alphaDeg,
-				beta_deg: fields.betaDeg,
-				gamma_deg: fields.gammaDeg,
-				z: fields.z,
-				temperature_k: fields.temperatureK ?? null,
-				structure_source: fields.structureSource,
+				...cellColumns(fields),
 				notes: input.notes,
 				created_by: actor.userId,
 				updated_by: actor.userId
@@ -143,16 +134,7 @@ export async function replaceCellFromCif(db: Executor, actor: Actor, polymorphId
 		const r = await tx
 			.updateTable('polymorph')
 			.set({
-				space_group: fields.spaceGroup,
-				a_a: fields.a,
-				b_a: fields.b,
-				c_a: fields.c,
-				alpha_deg: fields.alphaDeg,
-				beta_deg: fields.betaDeg,
-				gamma_deg: fields.gammaDeg,
-				z: fields.z,
-				temperature_k: fields.temperatureK ?? null,
-				structure_source: fields.structureSource,
+				...cellColumns(fields),
 				version: current.version + 1,
 				updated_at: new Date(),
 				updated_by: actor.userId

@@ -60,6 +60,33 @@ export function toPolymorph(r: PolymorphRow, formula: string | null): Polymorph 
 	};
 }
 
+/** Cell, Z and structure fields as polymorph columns (shared by the form, API and CIF import paths). */
+export function cellColumns(f: {
+	spaceGroup: string;
+	a: number;
+	b: number;
+	c: number;
+	alphaDeg: number;
+	betaDeg: number;
+	gammaDeg: number;
+	z: number;
+	temperatureK?: number | null;
+	structureSource: string;
+}) {
+	return {
+		space_group: f.spaceGroup,
+		a_a: f.a,
+		b_a: f.b,
+		c_a: f.c,
+		alpha_deg: f.alphaDeg,
+		beta_deg: f.betaDeg,
+		gamma_deg: f.gammaDeg,
+		z: f.z,
+		temperature_k: f.temperatureK ?? null,
+		structure_source: f.structureSource
+	};
+}
+
 /** The cell must describe a real parallelepiped before anything is stored. */
 function checkCell(input: Pick<PolymorphInput, 'a' | 'b' | 'c' | 'alphaDeg' | 'betaDeg' | 'gammaDeg'>) {
 	try {
@@ -121,16 +148,7 @@ export async function createPolymorph(db: Executor, actor: Actor, moleculeId: st
 				workspace_id: actor.workspaceId,
 				molecule_id: moleculeId,
 				label: input.label,
-				space_group: input.spaceGroup,
-				a_a: input.a,
-				b_a: input.b,
-				c_a: input.c,
-				alpha_deg: input.alphaDeg,
-				beta_deg: input.betaDeg,
-				gamma_deg: input.gammaDeg,
-				z: input.z,
-				temperature_k: input.temperatureK ?? null,
-				structure_source: input.structureSource,
+				...cellColumns(input),
 				notes: input.notes,
 				created_by: actor.userId,
 				updated_by: actor.userId
@@ -156,16 +174,7 @@ export async function updatePolymorph(db: Executor, actor: Actor, id: string, ex
 			.updateTable('polymorph')
 			.set({
 				label: next.label,
-				space_group: next.spaceGroup,
-				a_a: next.a,
-				b_a: next.b,
-				c_a: next.c,
-				alpha_deg: next.alphaDeg,
-				beta_deg: next.betaDeg,
-				gamma_deg: next.gammaDeg,
-				z: next.z,
-				temperature_k: next.temperatureK ?? null,
-				structure_source: next.structureSource,
+				...cellColumns(next),
 				notes: next.notes,
 				version: current.version + 1,
 				updated_at: new Date(),
