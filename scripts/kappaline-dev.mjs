@@ -262,6 +262,31 @@ function secret(file) {
 }
 
 // ---------------------------------------------------------------- commands
+/** Starts the built app (`node build`) on a free port with a fresh fake SMTP; resolves once /healthz answers. */
+async function startBuiltApp(databaseUrl, mailFolder, extraEnv = {}) {
+	const mailDir = join(DATA, mailFolder);
+	rmSync(mailDir, { recursive: true, force: true });
+	const smtpPort = await startFakeSmtp(mailDir);
+	const port = await freePort();
+	const origin = `http://127.0.0.1:${port}`;
+	const appEnv = {
+		DATABASE_URL: databaseUrl,
+		PORT: String(port),
+		HOST: '127.0.0.1',
+		ORIGIN: origin,
+		AUTH_SECRET: randomBytes(32).toString('base64url'),
+		SMTP_HOST: '127.0.0.1',
+		SMTP_PORT: String(smtpPort),
+		MAIL_DIR: mailDir,
+		PUBLIC_ORIGIN: origin,
+		BODY_SIZE_LIMIT: '5M',
+		...extraEnv
+	};
+	startChild('app', process.execPath, ['build'], appEnv);
+	await waitForHttp(`${origin}/healthz`);
+	return { origin, appEnv };
+}
+
 async function start() {
 	const t0 = Date.now();
 	ensureDeps();
@@ -324,27 +349,7 @@ async function test() {
 	if (failed) return finish(1);
 
 	run(bin('tsx'), ['scripts/migrate.ts'], { env: { ...env, DATABASE_URL: appDbUrl } });
-	const mailDir = join(DATA, 'mail-test');
-	rmSync(mailDir, { recursive: true, force: true });
-	const smtpPort = await startFakeSmtp(mailDir);
-	const port = await freePort();
-	const origin = `http://127.0.0.1:${port}`;
-	const appEnv = {
-		DATABASE_URL: appDbUrl,
-		PORT: String(port),
-		HOST: '127.0.0.1',
-		ORIGIN: origin,
-		AUTH_SECRET: randomBytes(32).toString('base64url'),
-		SMTP_HOST: '127.0.0.1',
-		SMTP_PORT: String(smtpPort),
-		MAIL_DIR: mailDir,
-		KAPPALINE_DEV_MAIL: '1',
-		KAPPALINE_TEST: '1',
-		PUBLIC_ORIGIN: origin,
-		BODY_SIZE_LIMIT: '5M'
-	};
-	startChild('app', process.execPath, ['build'], appEnv);
-	await waitForHttp(`${origin}/healthz`);
+	const { origin, appEnv } = await startBuiltApp(appDbUrl, 'mail-test', { KAPPALINE_DEV_MAIL: '1', KAPPALINE_TEST: '1' });
 
 	const testEnv = { ...env, ...appEnv, DATABASE_URL: intDbUrl, APP_DATABASE_URL: appDbUrl, APP_URL: origin };
 	failed += step('vitest (unit + integration)', () => run(bin('vitest'), ['run'], { allowFail: true, env: testEnv })) ? 1 : 0;
@@ -359,12 +364,29 @@ async function test() {
 	}
 }
 
+// `npm run bench` (not part of `npm test`): science micro-benchmarks, then HTTP load with autocannon
+// against the freshly built server on a database of its own (.data/pg-bench, database kappaline_bench).
+async function bench() {
+	ensureDeps();
+	cluster = await startCluster('pg-bench');
+	const databaseUrl = ensureDatabase(cluster, 'kappaline_bench', { fresh: true });
+	const env = { ...process.env, DATABASE_URL: databaseUrl };
+	run(bin('svelte-kit'), ['sync']);
+	run(bin('tsx'), ['scripts/migrate.ts'], { env });
+	log('building the app ...');
+	run(bin('vite'), ['build', '--logLevel', 'warn']);
+	// The load generator is one client: lift the per-token limit (600/min) so it measures the work, not the 429s.
+	const { origin } = await startBuiltApp(databaseUrl, 'mail-bench', { KAPPALINE_TOKEN_RATE_LIMIT: '100000000' });
+	const status = run(bin('tsx'), ['--tsconfig', 'tsconfig.cli.json', 'bench/run.ts', ...process.argv.slice(3)], { allowFail: true, env: { ...env, APP_URL: origin } });
+	shutdown(status);
+}
+
 process.on('SIGINT', () => shutdown(0));
 process.on('SIGTERM', () => shutdown(0));
 
-const commands = { start, test };
+const commands = { start, test, bench };
 if (!commands[mode]) {
-	console.error(`usage: node scripts/kappaline-dev.mjs start|test`);
+	console.error(`usage: node scripts/kappaline-dev.mjs start|test|bench`);
 	process.exit(2);
 }
 commands[mode]().catch((e) => {

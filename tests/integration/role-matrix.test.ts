@@ -5,41 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Db } from '../../src/lib/server/db/create-db';
 import { appDb, PASSWORD, teamFixture } from './fixtures';
 import { probe, signInCookie } from './http-helpers';
-
-import type { Need } from './policy/types';
-
-/**
- * `${routeId} ${GET|POST|PATCH|DELETE|?/action}` -> the least role allowed, one file per feature in
- * ./policy (so features added side by side do not edit the same table).
- */
-type PolicyModule = {
-	policy: Record<string, Need>;
-	/** Creates the feature's records in the team workspace; returns ids by URL segment (e.g. { studies: id }). */
-	seed?: (db: Db, fx: Awaited<ReturnType<typeof teamFixture>>) => Promise<Record<string, string>>;
-};
-const policyModules = Object.values(import.meta.glob<PolicyModule>('./policy/*.ts', { eager: true })).filter((m) => m.policy);
-const POLICY: Record<string, Need> = Object.assign({}, ...policyModules.map((m) => m.policy));
-
-const serverModules = import.meta.glob(['/src/routes/**/+page.server.ts', '/src/routes/**/+server.ts']);
-const pageFiles = Object.keys(import.meta.glob('/src/routes/**/+page.svelte'));
-const routeIdOf = (file: string) => file.replace(/^\/src\/routes/, '').replace(/\/\+[^/]+$/, '') || '/';
-
-/** Every (route, method or action) the app serves, read from its route modules. */
-async function discoverRoutes(): Promise<string[]> {
-	const found = new Set<string>();
-	for (const [file, load] of Object.entries(serverModules)) {
-		const id = routeIdOf(file);
-		const mod = (await load()) as Record<string, unknown>;
-		if (file.endsWith('+server.ts')) {
-			for (const m of ['GET', 'POST', 'PUT', 'PATCH', 'DELETE']) if (m in mod) found.add(`${id} ${m}`);
-		} else {
-			found.add(`${id} GET`);
-			for (const a of Object.keys((mod.actions as object) ?? {})) found.add(`${id} ?/${a}`);
-		}
-	}
-	for (const f of pageFiles) found.add(`${routeIdOf(f)} GET`);
-	return [...found].sort();
-}
+import { actionUrl as actionUrlOf, discoverRoutes, POLICY, seedAll, urlFor as urlIn } from './routes';
 
 let db: Db;
 let fx: Awaited<ReturnType<typeof teamFixture>>;
@@ -49,27 +15,13 @@ let ids: Record<string, string> = {};
 beforeAll(async () => {
 	db = appDb();
 	fx = await teamFixture(db);
-	ids = { molecules: fx.molecule.id, polymorphs: fx.polymorph.id };
-	for (const m of policyModules) if (m.seed) Object.assign(ids, await m.seed(db, fx));
+	ids = await seedAll(db, fx);
 	for (const who of ['owner', 'editor', 'viewer', 'outsider'] as const) cookies[who] = await signInCookie(fx[who].email, PASSWORD);
 });
 afterAll(async () => db?.destroy());
 
-function urlFor(routeId: string): string {
-	// Each `<segment>/[param=uuid]` takes the id seeded for that segment (molecules, polymorphs, ...).
-	const path = routeId
-		.replace(/\/\([^)]+\)/g, '')
-		.replace('[ws=uuid]', fx.ws)
-		.replace(/([\w-]+)\/\[\w+=uuid\]/g, (whole, segment: string) => {
-			if (!ids[segment]) throw new Error(`no id seeded for ${whole}: export a seed() from the feature's policy file`);
-			return `${segment}/${ids[segment]}`;
-		})
-		.replace('[token]', 'not-a-real-token');
-	return path || '/';
-}
-
-/** SvelteKit posts a page's default action to the page URL itself. */
-const actionUrl = (routeId: string, name: string) => (name === 'default' ? urlFor(routeId) : `${urlFor(routeId)}?/${name}`);
+const urlFor = (routeId: string) => urlIn(routeId, fx.ws, ids);
+const actionUrl = (routeId: string, name: string) => actionUrlOf(urlFor(routeId), name);
 
 const RANK = { viewer: 0, editor: 1, owner: 2 } as const;
 const denied = (s: number) => s === 401 || s === 403 || s === 404;

@@ -308,7 +308,8 @@ export async function planBundle(input: BundleInput): Promise<BundlePlan> {
 	return { rootFolder, manifest, files: [files[0], manifestFile, ...files.slice(1)] };
 }
 
-/** Zip a planned bundle (DEFLATE, Unix permissions: scripts executable, entry dates = createdAt). */
+/** Zip a planned bundle (DEFLATE level 1: a third faster than level 6 for 5 % more bytes, measured by
+ * bench/science/bundle-build.ts; Unix permissions: scripts executable, entry dates = createdAt). */
 export async function zipBundle(plan: BundlePlan): Promise<Uint8Array> {
 	const zip = new JSZip();
 	const date = new Date(plan.manifest.createdAt);
@@ -316,7 +317,7 @@ export async function zipBundle(plan: BundlePlan): Promise<Uint8Array> {
 	for (const f of plan.files) {
 		zip.file(prefix + f.path, f.text, { date, unixPermissions: f.executable ? 0o100755 : 0o100644, createFolders: false });
 	}
-	return zip.generateAsync({ type: 'uint8array', compression: 'DEFLATE', compressionOptions: { level: 6 }, platform: 'UNIX' });
+	return zip.generateAsync({ type: 'uint8array', compression: 'DEFLATE', compressionOptions: { level: 1 }, platform: 'UNIX' });
 }
 
 /** Plan and zip a run bundle; the zip's bytes, ready to stream as a download. */
