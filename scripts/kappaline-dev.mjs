@@ -288,7 +288,7 @@ async function start() {
 		MAIL_DIR: mailDir,
 		KAPPALINE_DEV_MAIL: '1',
 		PUBLIC_ORIGIN: origin,
-		BODY_SIZE_LIMIT: '5M'
+		BODY_SIZE_LIMIT: '52M'
 	});
 	await waitForHttp(`${origin}/healthz`);
 	const demo = JSON.parse(readFileSync(join(ROOT, 'scripts', 'demo-credentials.json'), 'utf8'));
@@ -341,7 +341,7 @@ async function test() {
 		KAPPALINE_DEV_MAIL: '1',
 		KAPPALINE_TEST: '1',
 		PUBLIC_ORIGIN: origin,
-		BODY_SIZE_LIMIT: '5M'
+		BODY_SIZE_LIMIT: '52M'
 	};
 	startChild('app', process.execPath, ['build'], appEnv);
 	await waitForHttp(`${origin}/healthz`);

@@ -56,8 +56,11 @@ beforeAll(async () => {
 afterAll(async () => db?.destroy());
 
 function urlFor(routeId: string): string {
-	// Each `<segment>/[param=uuid]` takes the id seeded for that segment (molecules, polymorphs, ...).
-	const path = routeId
+	// Each `<segment>/[param=uuid]` takes the id seeded for that segment (molecules, polymorphs, ...);
+	// a seeded key with two segments (`reruns/outputs`) wins over the last segment alone.
+	let scoped = routeId;
+	for (const [k, v] of Object.entries(ids)) if (k.includes('/')) scoped = scoped.replace(new RegExp(`${k}/\\[\\w+=uuid\\]`), `${k}/${v}`);
+	const path = scoped
 		.replace(/\/\([^)]+\)/g, '')
 		.replace('[ws=uuid]', fx.ws)
 		.replace(/([\w-]+)\/\[\w+=uuid\]/g, (whole, segment: string) => {
