@@ -14,7 +14,7 @@ import { createApiToken } from '../../src/lib/server/services/api-tokens';
 import { importPoints, createStudy, listPoints } from '../../src/lib/server/services/tuning';
 import { listReruns } from '../../src/lib/server/services/reruns';
 import { createMolecule } from '../../src/lib/server/services/molecules';
-import { appDb, teamFixture, WATER_XYZ } from './fixtures';
+import { appDb, teamFixture } from './fixtures';
 import { requireEnv } from './http-helpers';
 
 let db: Db;
@@ -22,6 +22,9 @@ let fx: Awaited<ReturnType<typeof teamFixture>>;
 let editor: string;
 let viewer: string;
 let bundleZip: Uint8Array;
+let so2Id: string;
+// SO2 at the fixtures' geometry (r(S-O) = 1.4308 Å, O-S-O 119.33°; decks/fixtures/README.md).
+const SO2_XYZ = '3\nsulfur dioxide\nS 0.0000000000 0.0000000000 0.0000000000\nO 1.2349051531 0.0000000000 -0.7226326196\nO -1.2349051531 0.0000000000 -0.7226326196\n';
 const OUTPUTS: Record<string, string> = { '0.2': so2G02, '0.3': so2G03, '0.4': so2G04 };
 
 const base = () => requireEnv('APP_URL');
@@ -34,9 +37,9 @@ function fixturePoint(text: string) {
 	return energies;
 }
 
-async function newStudy(ws = fx.ws, userId = fx.owner.id, moleculeId = fx.molecule.id) {
+async function newStudy(ws = fx.ws, userId = fx.owner.id, moleculeId = so2Id, alpha = 0.2) {
 	const actor = { userId, workspaceId: ws, role: 'owner' as const };
-	return createStudy(db, actor, moleculeId, { name: `uploads ${Math.random().toString(36).slice(2, 7)}`, engine: 'NWChem', engineVersion: '7.0.2', semilocalBase: 'PBE', basisSet: 'aug-cc-pVDZ', alpha: 0.2, objective: 'abs-sum', notes: '' });
+	return createStudy(db, actor, moleculeId, { name: `uploads ${Math.random().toString(36).slice(2, 7)}`, engine: 'NWChem', engineVersion: '7.0.2', semilocalBase: 'PBE', basisSet: 'aug-cc-pVDZ', alpha, objective: 'abs-sum', notes: '' });
 }
 const studyVersion = async (id: string) => (await db.selectFrom('tuning_study').select('version').where('id', '=', id).executeTakeFirstOrThrow()).version;
 const preview = async (studyId: string, token = editor) => {
@@ -49,11 +52,12 @@ beforeAll(async () => {
 	fx = await teamFixture(db);
 	editor = (await createApiToken(db, fx.editor.id, { workspaceId: fx.ws, name: 'uploads', role: 'editor', expiresInDays: 1 })).token;
 	viewer = (await createApiToken(db, fx.viewer.id, { workspaceId: fx.ws, name: 'read', role: 'viewer', expiresInDays: 1 })).token;
+	so2Id = (await createMolecule(db, { userId: fx.owner.id, workspaceId: fx.ws, role: 'owner' }, { name: 'SO2', formula: '', netCharge: 0, multiplicity: 1, geometryXyz: SO2_XYZ, smiles: '', notes: '' })).id;
 	// The scan bundle as the API builds it (one deck per gamma with the three states, like the fixtures)...
 	const r = await fetch(`${base()}/api/v1/workspaces/${fx.ws}/bundles`, {
 		method: 'POST',
 		headers: { authorization: `Bearer ${editor}`, 'content-type': 'application/json' },
-		body: JSON.stringify({ moleculeId: fx.molecule.id, alpha: 0.2, tuningGammas: [0.2, 0.3, 0.4], tuningLayout: 'combined', basis: 'aug-cc-pvdz' })
+		body: JSON.stringify({ moleculeId: so2Id, alpha: 0.2, tuningGammas: [0.2, 0.3, 0.4], tuningLayout: 'combined', basis: 'aug-cc-pvdz' })
 	});
 	expect(r.status, await r.clone().text()).toBe(201);
 	const zip = await JSZip.loadAsync(new Uint8Array(await r.arrayBuffer()));
@@ -167,7 +171,7 @@ describe('output uploads: preview, then confirm', () => {
 		expect((await call(editor, 'POST', `${fx.ws}/studies/${mine.id}/outputs/${p.body.id}/confirm`)).status).toBe(404);
 		// An upload in the outsider's own workspace, confirmed through the team's URL.
 		const outsiderToken = (await createApiToken(db, fx.outsider.id, { workspaceId: fx.outsider.personal, name: 'own', role: 'owner', expiresInDays: 1 })).token;
-		const mol = await createMolecule(db, { userId: fx.outsider.id, workspaceId: fx.outsider.personal, role: 'owner' }, { name: 'Water elsewhere', formula: '', netCharge: 0, multiplicity: 1, geometryXyz: WATER_XYZ, smiles: '', notes: '' });
+		const mol = await createMolecule(db, { userId: fx.outsider.id, workspaceId: fx.outsider.personal, role: 'owner' }, { name: 'SO2 elsewhere', formula: '', netCharge: 0, multiplicity: 1, geometryXyz: SO2_XYZ, smiles: '', notes: '' });
 		const theirs = await newStudy(fx.outsider.personal, fx.outsider.id, mol.id);
 		const r = await call(outsiderToken, 'POST', `${fx.outsider.personal}/studies/${theirs.id}/outputs?name=so2-scan.zip`, bundleZip);
 		expect(r.status).toBe(201);
@@ -201,6 +205,19 @@ describe('output uploads: preview, then confirm', () => {
 		expect(row.discarded_at).not.toBeNull();
 		expect((row.plan as { tuning: unknown[] }).tuning).toEqual([]);
 		expect(await listPoints(db, s.id)).toEqual([]);
+	});
+
+	it('a bundle for another molecule, or a scan at another alpha, is refused naming both values', async () => {
+		const water = await newStudy(fx.ws, fx.owner.id, fx.molecule.id);
+		const w = await preview(water.id);
+		expect(w.status).toBe(400);
+		expect(w.body.error.message).toBe(`the bundle's manifest is for SO2 (O2S), but this study belongs to a molecule with formula H2O; nothing was read`);
+		const other = await newStudy(fx.ws, fx.owner.id, so2Id, 0.25);
+		const a = await preview(other.id);
+		expect(a.status).toBe(400);
+		expect(a.body.error.message).toBe('the bundle\'s scan decks use alpha 0.2, but this study uses alpha 0.25; upload them into a study with alpha 0.2');
+		expect(await listPoints(db, water.id)).toEqual([]);
+		expect(await listPoints(db, other.id)).toEqual([]);
 	});
 
 	it('several outputs as multipart/form-data are read together', async () => {

@@ -3,6 +3,7 @@ import { sql } from 'kysely';
 import { ArchiveError, ingestOutputs, ManifestError, type IngestedFile, type IngestFileInput, type IngestProblem, type IngestResult } from '$lib/formats/bundle';
 import { ENERGY_TOLERANCE_HARTREE, planReruns, planScanPoints, type PlannedRerun, type PlannedScanPoint } from '$lib/formats/bundle/ingest-plan';
 import type { BundleStateLabel } from '$lib/formats/bundle/manifest';
+import { parseFormula } from '$lib/science/elements';
 import { MAX_UPLOAD_BYTES } from '$lib/upload-limits';
 import type { Executor } from '../db';
 import { inTransaction } from '../db/transaction';
@@ -89,16 +90,50 @@ export async function readOutputs(files: readonly UploadedFile[]): Promise<Inges
 const sha256 = (b: Uint8Array | string) => createHash('sha256').update(b).digest('hex');
 const key = (x: number) => x.toFixed(6);
 
-async function targetExists(db: Executor, workspaceId: string, target: UploadTarget, lock: boolean): Promise<void> {
-	const table = target.kind === 'study' ? 'tuning_study' : 'polymorph';
-	const row = await db
-		.selectFrom(table)
-		.select('id')
-		.where('workspace_id', '=', workspaceId)
-		.where('id', '=', target.id)
-		.$if(lock, (q) => q.forUpdate())
-		.executeTakeFirst();
+/** The target's molecule formula and, for a study, its alpha; 404 when it is not in the workspace. */
+async function targetRow(db: Executor, workspaceId: string, target: UploadTarget, lock: boolean): Promise<{ formula: string; alpha: number | null }> {
+	const row =
+		target.kind === 'study'
+			? await db
+					.selectFrom('tuning_study as t')
+					.innerJoin('molecule as m', 'm.id', 't.molecule_id')
+					.select(['m.formula', 't.alpha'])
+					.where('t.workspace_id', '=', workspaceId)
+					.where('t.id', '=', target.id)
+					.$if(lock, (q) => q.forUpdate('t'))
+					.executeTakeFirst()
+			: await db
+					.selectFrom('polymorph as p')
+					.innerJoin('molecule as m', 'm.id', 'p.molecule_id')
+					.select(['m.formula', sql<null>`null`.as('alpha')])
+					.where('p.workspace_id', '=', workspaceId)
+					.where('p.id', '=', target.id)
+					.$if(lock, (q) => q.forUpdate('p'))
+					.executeTakeFirst();
 	if (!row) throw new NotFoundError(target.kind === 'study' ? 'tuning study' : 'polymorph');
+	return row;
+}
+
+/** Same element counts (SO2 and O2S are the same); unreadable formulas are not compared. */
+function sameFormula(a: string, b: string): boolean {
+	try {
+		const [x, y] = [parseFormula(a), parseFormula(b)];
+		return Object.keys(x).length === Object.keys(y).length && Object.entries(x).every(([el, n]) => y[el] === n);
+	} catch {
+		return true;
+	}
+}
+
+/** A bundle made for another molecule, or a scan at another alpha than the study's, is refused with both values named. */
+function checkManifest(read: IngestResult, target: UploadTarget, t: { formula: string; alpha: number | null }): void {
+	const m = read.manifest;
+	if (!m) return;
+	if (t.formula && m.molecule.formula && !sameFormula(m.molecule.formula, t.formula)) {
+		throw new ValidationError(`the bundle's manifest is for ${m.molecule.name} (${m.molecule.formula}), but this ${target.kind === 'study' ? 'study' : 'polymorph'} belongs to a molecule with formula ${t.formula}; nothing was read`, 'outputs');
+	}
+	if (target.kind === 'study' && t.alpha !== null && m.tuning && Math.abs(m.tuning.alpha - t.alpha) > 1e-9) {
+		throw new ValidationError(`the bundle's scan decks use alpha ${m.tuning.alpha}, but this study uses alpha ${t.alpha}; upload them into a study with alpha ${m.tuning.alpha}`, 'outputs');
+	}
 }
 
 /** Plans the parsed records against what the target holds now. */
@@ -161,8 +196,9 @@ export async function previewUpload(db: Executor, actor: Actor, target: UploadTa
 	if (files.length === 0 || files.every((f) => f.bytes.length === 0)) throw new ValidationError('choose NWChem outputs (.out) or the bundle zip with the outputs beside the decks', 'outputs');
 	const sizeBytes = files.reduce((s, f) => s + f.bytes.length, 0);
 	if (sizeBytes > MAX_UPLOAD_BYTES) throw new ValidationError(`the upload is ${(sizeBytes / 1e6).toFixed(1)} MB, over the limit of ${MAX_UPLOAD_BYTES / 1e6} MB`, 'outputs');
-	await targetExists(db, actor.workspaceId, target, false);
+	const t = await targetRow(db, actor.workspaceId, target, false);
 	const read = await readOutputs(files);
+	checkManifest(read, target, t);
 	const label = files.length === 1 ? files[0].name : `${files.length} files`;
 	const useful = target.kind === 'study' ? read.tuning.length : read.screened.length;
 	if (!useful) {
@@ -265,7 +301,7 @@ export async function confirmUpload(db: Executor, actor: Actor, target: UploadTa
 	return inTransaction(db, async (tx) => {
 		const row = await findUpload(tx, actor, target, uploadId, true);
 		usable(row);
-		await targetExists(tx, actor.workspaceId, target, true);
+		await targetRow(tx, actor.workspaceId, target, true);
 		const p = row.plan as StoredPlan;
 		const planned = await plan(tx, actor.workspaceId, target, p);
 		const changed = [
