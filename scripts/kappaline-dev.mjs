@@ -279,7 +279,7 @@ async function startBuiltApp(databaseUrl, mailFolder, extraEnv = {}) {
 		SMTP_PORT: String(smtpPort),
 		MAIL_DIR: mailDir,
 		PUBLIC_ORIGIN: origin,
-		BODY_SIZE_LIMIT: '5M',
+		BODY_SIZE_LIMIT: '52M',
 		...extraEnv
 	};
 	startChild('app', process.execPath, ['build'], appEnv);
@@ -313,7 +313,7 @@ async function start() {
 		MAIL_DIR: mailDir,
 		KAPPALINE_DEV_MAIL: '1',
 		PUBLIC_ORIGIN: origin,
-		BODY_SIZE_LIMIT: '5M'
+		BODY_SIZE_LIMIT: '52M'
 	});
 	await waitForHttp(`${origin}/healthz`);
 	const demo = JSON.parse(readFileSync(join(ROOT, 'scripts', 'demo-credentials.json'), 'utf8'));

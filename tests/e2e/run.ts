@@ -3,6 +3,7 @@
 import type { Page } from 'playwright-core';
 import { assert, cspViolations, firstLink, newContext, runSteps, shot, step, waitForMail } from './harness';
 import { registerDielectricSteps } from './steps-dielectric';
+import { registerIngestSteps } from './steps-ingest';
 import { registerTuningSteps } from './steps-tuning';
 
 const run = Date.now().toString(36);
@@ -206,6 +207,7 @@ step('the invitee signs up, joins as viewer and finds the pages read-only', asyn
 
 registerDielectricSteps(consoleErrors);
 registerTuningSteps({ user: alice, workspaceUrl: () => workspaceUrl, consoleErrors });
+registerIngestSteps({ user: alice, workspaceUrl: () => workspaceUrl, consoleErrors });
 
 step('no uncaught errors and no Content-Security-Policy violations in the pages', async () => {
 	assert(consoleErrors.length === 0, `page errors: ${consoleErrors.join('; ')}`);

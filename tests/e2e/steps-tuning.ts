@@ -20,6 +20,30 @@ O -1.2349051531 0.0000000000 -0.7226326196
 `;
 const SCAN = readFileSync(join(process.cwd(), 'src/lib/science/tuning/fixtures/so2-alpha0.2-aug-cc-pvdz.csv'));
 
+/** Signs the user in, creates SO2 from its XYZ and a tuning study (alpha 0.2, aug-cc-pVDZ); returns the molecule's path. */
+export async function signInAndCreateSo2Study(page: Page, state: TuningStepsState, names: { molecule: string; study: string }): Promise<string> {
+	await page.goto('/signin');
+	const f = page.locator('form[action="?/password"]');
+	await f.getByLabel('E-mail').fill(state.user.email);
+	await f.locator('input[name=password]').fill(state.user.password);
+	await f.getByRole('button', { name: 'Sign in' }).click();
+	await page.waitForURL(/\/w\//);
+	await page.goto(`${state.workspaceUrl()}/molecules/new`);
+	await page.getByLabel('Name').fill(names.molecule);
+	await page.getByTestId('xyz-file').setInputFiles({ name: 'so2.xyz', mimeType: 'text/plain', buffer: Buffer.from(SO2_XYZ) });
+	await page.getByRole('button', { name: 'Create molecule' }).click();
+	await page.waitForURL(/\/molecules\/[0-9a-f-]{36}$/);
+	const moleculeUrl = new URL(page.url()).pathname;
+	await page.getByTestId('new-study').click();
+	await page.waitForURL(/\/studies\/new$/);
+	await page.getByLabel('Study name').fill(names.study);
+	await page.getByLabel('Engine version').fill('7.0.2');
+	await page.getByLabel('Basis set').fill('aug-cc-pVDZ');
+	await page.getByRole('button', { name: 'Create study' }).click();
+	await page.waitForURL(/\/studies\/[0-9a-f-]{36}$/);
+	return moleculeUrl;
+}
+
 export function registerTuningSteps(state: TuningStepsState): void {
 	let ctx: BrowserContext;
 	let page: Page;
@@ -30,25 +54,7 @@ export function registerTuningSteps(state: TuningStepsState): void {
 		ctx = await newContext();
 		page = await ctx.newPage();
 		page.on('pageerror', (e) => state.consoleErrors.push(`tuning: ${e.message}`));
-		await page.goto('/signin');
-		const f = page.locator('form[action="?/password"]');
-		await f.getByLabel('E-mail').fill(state.user.email);
-		await f.locator('input[name=password]').fill(state.user.password);
-		await f.getByRole('button', { name: 'Sign in' }).click();
-		await page.waitForURL(/\/w\//);
-		await page.goto(`${state.workspaceUrl()}/molecules/new`);
-		await page.getByLabel('Name').fill('Sulfur dioxide');
-		await page.getByTestId('xyz-file').setInputFiles({ name: 'so2.xyz', mimeType: 'text/plain', buffer: Buffer.from(SO2_XYZ) });
-		await page.getByRole('button', { name: 'Create molecule' }).click();
-		await page.waitForURL(/\/molecules\/[0-9a-f-]{36}$/);
-		moleculeUrl = new URL(page.url()).pathname;
-		await page.getByTestId('new-study').click();
-		await page.waitForURL(/\/studies\/new$/);
-		await page.getByLabel('Study name').fill('alpha 0.2, aug-cc-pVDZ');
-		await page.getByLabel('Engine version').fill('7.0.2');
-		await page.getByLabel('Basis set').fill('aug-cc-pVDZ');
-		await page.getByRole('button', { name: 'Create study' }).click();
-		await page.waitForURL(/\/studies\/[0-9a-f-]{36}$/);
+		moleculeUrl = await signInAndCreateSo2Study(page, state, { molecule: 'Sulfur dioxide', study: 'alpha 0.2, aug-cc-pVDZ' });
 		await page.getByTestId('scan-import').waitFor();
 		await shot(page, '10-tuning-new-study');
 	});

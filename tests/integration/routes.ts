@@ -48,9 +48,14 @@ export async function discoverRoutes(): Promise<string[]> {
 /** True when the route has an id segment besides the workspace (a record of some type). */
 export const hasRecordId = (routeId: string) => /\/[\w-]+\/\[\w+=uuid\]/.test(routeId.replace('[ws=uuid]', ''));
 
-/** The URL of a route id in workspace `ws`, each `<segment>/[param=uuid]` taking the id seeded for that segment. */
+/**
+ * The URL of a route id in workspace `ws`, each `<segment>/[param=uuid]` taking the id seeded for that
+ * segment; a seeded key with two segments (`reruns/outputs`) wins over the last segment alone.
+ */
 export function urlFor(routeId: string, ws: string, ids: Record<string, string>): string {
-	const path = routeId
+	let scoped = routeId;
+	for (const [k, v] of Object.entries(ids)) if (k.includes('/')) scoped = scoped.replace(new RegExp(`${k}/\\[\\w+=uuid\\]`), `${k}/${v}`);
+	const path = scoped
 		.replace(/\/\([^)]+\)/g, '')
 		.replace('[ws=uuid]', ws)
 		.replace(/([\w-]+)\/\[\w+=uuid\]/g, (whole, segment: string) => {

@@ -10,6 +10,8 @@ export const bundleRequest = z
 		studyId: z.uuid().optional(),
 		alpha: z.coerce.number({ error: 'alpha must be a number' }).min(0, 'alpha must be between 0 and 1').max(1, 'alpha must be between 0 and 1'),
 		tuningGammas: z.array(gamma).max(60, 'at most 60 gamma values').optional(),
+		/** One deck per state, or the three states in one deck per gamma. */
+		tuningLayout: z.enum(['per-state', 'combined'], { error: 'layout must be per-state or combined' }).default('per-state'),
 		screened: z
 			.object({
 				gammaBohrInv: gamma,
@@ -52,6 +54,7 @@ export function bundleRequestFromForm(f: Record<string, string>): BundleRequest 
 		studyId: f.studyId || undefined,
 		alpha: f.alpha,
 		tuningGammas: f.tuningGammas ? parseNumberList(f.tuningGammas) : undefined,
+		tuningLayout: f.tuningLayout || undefined,
 		screened: eps.length ? { gammaBohrInv: f.gamma, epsilons: eps, epsilonSource: f.epsilonSource || undefined } : undefined,
 		basis: f.basis || undefined,
 		memoryMb: f.memoryMb || undefined,

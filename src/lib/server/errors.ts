@@ -35,3 +35,14 @@ export class DependentsError extends Error {
 		this.name = 'DependentsError';
 	}
 }
+
+/** A pending upload that can no longer be confirmed: already confirmed or discarded (409), or expired (410). */
+export class UploadStateError extends Error {
+	constructor(
+		message: string,
+		readonly status: 409 | 410
+	) {
+		super(message);
+		this.name = 'UploadStateError';
+	}
+}

@@ -1,6 +1,7 @@
 import { fail, isHttpError, isRedirect, json, type ActionFailure, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
-import { DependentsError, NotFoundError, StaleVersionError, ValidationError } from './errors';
+import { MAX_UPLOAD_BYTES } from '$lib/upload-limits';
+import { DependentsError, NotFoundError, StaleVersionError, UploadStateError, ValidationError } from './errors';
 
 /** The JSON error body every /api/v1 route uses. */
 export interface ApiErrorBody {
@@ -22,6 +23,7 @@ export function errorResponse(e: unknown): Response {
 	if (e instanceof StaleVersionError) return apiError(412, 'stale_version', e.message);
 	if (e instanceof NotFoundError) return apiError(404, 'not_found', e.message);
 	if (e instanceof DependentsError) return apiError(409, 'has_dependents', e.message, { dependents: e.dependents });
+	if (e instanceof UploadStateError) return apiError(e.status, e.status === 410 ? 'expired' : 'conflict', e.message);
 	if (isHttpError(e)) {
 		const type = { 400: 'bad_request', 401: 'unauthenticated', 403: 'forbidden', 404: 'not_found', 413: 'too_large', 429: 'rate_limited' }[e.status] ?? 'error';
 		return apiError(e.status, type, e.body.message);
@@ -73,11 +75,12 @@ export function formFailure<T extends Record<string, unknown>>(e: unknown, value
 	if (e instanceof StaleVersionError) return fail(409, { values, message: e.message, errors: {} });
 	if (e instanceof DependentsError) return fail(409, { values, message: `${e.message}: ${e.dependents.join(', ')}`, errors: {} });
 	if (e instanceof NotFoundError) return fail(404, { values, message: e.message, errors: {} });
+	if (e instanceof UploadStateError) return fail(e.status, { values, message: e.message, errors: {} });
 	throw e;
 }
 
 /** Largest raw upload (engine outputs, bundle zips) the API takes. */
-export const MAX_UPLOAD_BYTES = 50_000_000;
+export { MAX_UPLOAD_BYTES };
 
 /** A raw-body upload: its bytes and a file name (?name=, or guessed from the content type), size-checked. */
 export async function readUpload(event: RequestEvent): Promise<{ name: string; bytes: Uint8Array }> {
@@ -86,4 +89,22 @@ export async function readUpload(event: RequestEvent): Promise<{ name: string; b
 	if (bytes.length === 0) throw new ValidationError('the upload is empty', 'body');
 	if (bytes.length > MAX_UPLOAD_BYTES) throw new ValidationError(`the upload is over the limit of ${MAX_UPLOAD_BYTES / 1e6} MB`, 'body');
 	return { name, bytes };
+}
+
+/**
+ * Uploaded files of an API call: every file part of a multipart/form-data body, or the raw body as
+ * one file (see {@link readUpload}); the total is size-checked.
+ */
+export async function readUploadFiles(event: RequestEvent): Promise<{ name: string; bytes: Uint8Array }[]> {
+	if (!event.request.headers.get('content-type')?.startsWith('multipart/form-data')) return [await readUpload(event)];
+	return formFiles(await event.request.formData(), null, 'body');
+}
+
+/** The files of a form (all fields, or one named field), non-empty and within {@link MAX_UPLOAD_BYTES} together. */
+export async function formFiles(form: FormData, field: string | null, errorField = field ?? 'body'): Promise<{ name: string; bytes: Uint8Array }[]> {
+	const files = [...(field ? form.getAll(field) : [...form.values()])].filter((v): v is File => v instanceof File && v.size > 0);
+	if (!files.length) throw new ValidationError('choose NWChem outputs (.out) or the bundle zip with the outputs beside the decks', errorField);
+	const total = files.reduce((s, f) => s + f.size, 0);
+	if (total > MAX_UPLOAD_BYTES) throw new ValidationError(`the upload is ${(total / 1e6).toFixed(1)} MB, over the limit of ${MAX_UPLOAD_BYTES / 1e6} MB`, errorField);
+	return Promise.all(files.map(async (f) => ({ name: f.name, bytes: new Uint8Array(await f.arrayBuffer()) })));
 }

@@ -11,7 +11,7 @@ import { readNwchemOutput } from '../decks';
 import { planBundle, zipBundle } from './build';
 import { ArchiveError, ManifestError } from './errors';
 import { ingestOutputs } from './ingest';
-import { so2BundleInput } from './so2.testdata';
+import { scanPointFromOutput, so2BundleInput } from './so2.testdata';
 
 // Real NWChem 7.0.2 outputs from decks/fixtures (see its README.md): the SO2 tuning decks at gamma
 // 0.2, 0.3, 0.4 bohr^-1 (three states per deck, alpha 0.2), the screened rerun at epsilon 3, an
@@ -21,18 +21,7 @@ const scanInput = () =>
 	so2BundleInput({ tuning: { gammasBohrInv: [0.2, 0.3, 0.4], layout: 'combined' }, screened: { gammaBohrInv: 0.3, epsilons: [3] } });
 
 /** The values the tuning module needs, read straight from a fixture with the output reader. */
-function expectedPoint(text: string, gammaBohrInv: number) {
-	const [n, c, a] = readNwchemOutput(text).tasks;
-	return {
-		gammaBohrInv,
-		eNeutralHartree: n.totalEnergyHartree,
-		eCationHartree: c.totalEnergyHartree,
-		eAnionHartree: a.totalEnergyHartree,
-		homoNeutralHartree: n.homoHartree,
-		lumoNeutralHartree: n.lumoHartree,
-		homoAnionHartree: a.homoHartree
-	};
-}
+const expectedPoint = scanPointFromOutput;
 
 /** Build the bundle, then add outputs (paths relative to the bundle folder) as a user would. */
 async function bundleWithOutputs(outputs: Record<string, string>, edit?: (zip: JSZip) => void): Promise<Uint8Array> {

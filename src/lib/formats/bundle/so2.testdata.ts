@@ -2,6 +2,7 @@
  * Shared test data for the bundle specs (not used by the app): the SO2 molecule of the deck fixtures
  * and a bundle request that reproduces the fixture decks (decks/fixtures/README.md).
  */
+import { readNwchemOutput } from '../decks';
 import type { BundleInput } from './build';
 
 const r = 1.4308;
@@ -27,5 +28,22 @@ export function so2BundleInput(over: Partial<BundleInput> = {}): BundleInput {
 		createdAt: '2026-12-01T12:00:00.000Z',
 		study: 'deck fixture runs',
 		...over
+	};
+}
+
+/**
+ * The scan point a combined tuning output gives (tasks in the order neutral, cation, anion), read with
+ * the project's NWChem reader: what the ingestion must produce from the same file.
+ */
+export function scanPointFromOutput(text: string, gammaBohrInv: number) {
+	const [n, c, a] = readNwchemOutput(text).tasks;
+	return {
+		gammaBohrInv,
+		eNeutralHartree: n.totalEnergyHartree,
+		eCationHartree: c.totalEnergyHartree,
+		eAnionHartree: a.totalEnergyHartree,
+		homoNeutralHartree: n.homoHartree,
+		lumoNeutralHartree: n.lumoHartree,
+		homoAnionHartree: a.homoHartree
 	};
 }

@@ -66,9 +66,27 @@ export interface SolidEstimateTable {
 	created_at: Timestamp;
 }
 
+/** Engine outputs read and waiting for the user's confirmation (see services/output-uploads). */
+export interface OutputUploadTable {
+	id: Generated<string>;
+	workspace_id: string;
+	target_kind: 'study' | 'polymorph';
+	target_id: string;
+	created_by: string | null;
+	files: ColumnType<{ name: string; sizeBytes: number; sha256: string }[], string, string>;
+	size_bytes: ColumnType<string, number, number>;
+	sha256: string;
+	plan: ColumnType<unknown, string, string>;
+	confirmed_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+	discarded_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+	created_at: Timestamp;
+	expires_at: ColumnType<Date, Date | string, Date | string>;
+}
+
 export interface LevelsTables {
 	solid_estimate: SolidEstimateTable;
 	measurement: MeasurementTable;
 	bundle: BundleTable;
 	rerun_result: RerunResultTable;
+	output_upload: OutputUploadTable;
 }

@@ -47,7 +47,7 @@ async function bundleInput(db: Executor, workspaceId: string, req: BundleRequest
 			engine: 'nwchem',
 			molecule: { name: m.name, atoms, charge: m.net_charge, multiplicity: m.multiplicity },
 			alpha: req.alpha,
-			tuning: req.tuningGammas?.length ? { gammasBohrInv: req.tuningGammas, layout: 'per-state' } : null,
+			tuning: req.tuningGammas?.length ? { gammasBohrInv: req.tuningGammas, layout: req.tuningLayout } : null,
 			screened: req.screened ? { gammaBohrInv: req.screened.gammaBohrInv, epsilons: req.screened.epsilons, epsilonSource: req.screened.epsilonSource ?? null } : null,
 			settings: { basis: req.basis, memoryMb: req.memoryMb },
 			scripts: { cores: req.cores },

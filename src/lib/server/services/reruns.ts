@@ -1,4 +1,4 @@
-import { ArchiveError, ingestOutputs, ManifestError, type IngestProblem, type IngestResult } from '$lib/formats/bundle';
+import type { RerunValues } from '$lib/formats/bundle/ingest-plan';
 import { HARTREE_EV } from '$lib/science/units';
 import type { Executor } from '../db';
 import { NotFoundError, ValidationError } from '../errors';
@@ -21,13 +21,7 @@ export interface RerunResult {
 	createdAt: Date;
 }
 
-export interface RerunInput {
-	epsilon: number;
-	alpha: number;
-	gammaBohrInv: number;
-	homoHartree: number;
-	lumoHartree: number | null;
-}
+export type RerunInput = RerunValues;
 
 type Row = { id: string; epsilon: number; alpha: number; gamma_bohr_inv: number; homo_hartree: number; lumo_hartree: number | null; source: 'typed' | 'engine-output'; file_name: string | null; created_at: Date };
 
@@ -76,36 +70,4 @@ export async function addReruns(db: Executor, actor: Actor, polymorphId: string,
 export async function deleteRerun(db: Executor, actor: Actor, polymorphId: string, id: string): Promise<void> {
 	const r = await db.deleteFrom('rerun_result').where('workspace_id', '=', actor.workspaceId).where('polymorph_id', '=', polymorphId).where('id', '=', id).executeTakeFirst();
 	if (!r.numDeletedRows) throw new NotFoundError('rerun result');
-}
-
-/**
- * Reads screened-rerun outputs (a bundle zip with outputs beside the decks, or single NWChem outputs) and
- * stores their HOMO/LUMO. Archives are checked first (size, entry count, compression ratio, paths, links,
- * nested archives). Nothing is stored when no screened result could be read.
- */
-export async function ingestReruns(db: Executor, actor: Actor, polymorphId: string, fileName: string, bytes: Uint8Array): Promise<{ stored: RerunResult[]; problems: IngestProblem[] }> {
-	const result = await readOutputs(fileName, bytes);
-	if (!result.screened.length) {
-		const why = result.problems.map((p) => p.message).slice(0, 5).join('; ');
-		throw new ValidationError(`no screened rerun result found in ${fileName}${why ? `: ${why}` : ''}`, 'file');
-	}
-	const stored = await addReruns(
-		db,
-		actor,
-		polymorphId,
-		result.screened.map((s) => ({ epsilon: s.epsilon, alpha: s.alpha, gammaBohrInv: s.gammaBohrInv, homoHartree: s.homoHartree, lumoHartree: s.lumoHartree })),
-		'engine-output',
-		fileName
-	);
-	return { stored, problems: result.problems };
-}
-
-/** Reads uploaded engine outputs (a zip, or one output file); archive and manifest refusals become field errors. */
-export async function readOutputs(fileName: string, bytes: Uint8Array): Promise<IngestResult> {
-	try {
-		return await ingestOutputs(fileName.toLowerCase().endsWith('.zip') ? bytes : { name: fileName, bytes });
-	} catch (e) {
-		if (e instanceof ArchiveError || e instanceof ManifestError) throw new ValidationError(e.message, 'file');
-		throw e;
-	}
 }

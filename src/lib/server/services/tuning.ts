@@ -64,7 +64,8 @@ export interface TuningStudySummary {
 	version: number;
 }
 
-const ENERGY_COLUMNS = {
+/** Scan-point energy fields and their columns. */
+export const ENERGY_COLUMNS = {
 	eNeutralHartree: 'e_neutral_ha',
 	eCationHartree: 'e_cation_ha',
 	eAnionHartree: 'e_anion_ha',

@@ -4,19 +4,21 @@ import { ScanTableError, applyMapping, parseScanTable, type ScanMapping } from '
 import { requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { NotFoundError, ValidationError } from '$lib/server/errors';
-import { formFailure, MAX_UPLOAD_BYTES } from '$lib/server/http';
+import { formFailure, formFiles } from '$lib/server/http';
 import { listActivity } from '$lib/server/repo/activity';
 import { exclusionInput, studyInput, tuningObjective } from '$lib/schemas/tuning';
 import { deleteStudy, getStudy, importPoints, markCurrent, saveAnalysis, setPointExclusion, updatePoint, updateStudy } from '$lib/server/services/tuning';
-import { ingestScanOutputs } from '$lib/server/services/tuning-ingest';
+import { confirmUpload, discardUpload, latestPendingUpload, previewUpload } from '$lib/server/services/output-uploads';
+import { canEdit } from '$lib/roles';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	await requireRole(event, event.params.ws, 'viewer');
+	const actor = await requireRole(event, event.params.ws, 'viewer');
 	try {
 		const study = await getStudy(db(), event.params.ws, event.params.id);
 		const activity = await listActivity(db(), event.params.ws, { entityIds: [study.id, ...study.points.map((p) => p.id)], limit: 30 });
-		return { study, activity };
+		const pendingUpload = canEdit(actor.role) ? await latestPendingUpload(db(), actor, { kind: 'study', id: study.id }) : null;
+		return { study, activity, pendingUpload };
 	} catch (e) {
 		if (e instanceof NotFoundError) error(404, 'Not found');
 		throw e;
@@ -82,14 +84,31 @@ export const actions: Actions = {
 	},
 	ingest: async (event) => {
 		const actor = await requireRole(event, event.params.ws, 'editor');
-		const file = (await event.request.formData()).get('outputs');
 		try {
-			if (!(file instanceof File) || file.size === 0) throw new ValidationError('choose NWChem outputs (.out) or the bundle zip with the outputs beside the decks', 'outputs');
-			if (file.size > MAX_UPLOAD_BYTES) throw new ValidationError(`the upload is ${(file.size / 1e6).toFixed(1)} MB, over the limit of ${MAX_UPLOAD_BYTES / 1e6} MB`, 'outputs');
-			const r = await ingestScanOutputs(db(), actor, event.params.id, file.name, new Uint8Array(await file.arrayBuffer()));
-			return { ingested: r.inserted, problems: r.problems.map((p) => `${p.file}: ${p.message}`) };
+			const files = await formFiles(await event.request.formData(), 'outputs');
+			return { upload: await previewUpload(db(), actor, { kind: 'study', id: event.params.id }, files) };
 		} catch (e) {
 			return formFailure(e, { _section: 'ingest' });
+		}
+	},
+	confirmIngest: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'editor');
+		const values = await form(event);
+		try {
+			const r = await confirmUpload(db(), actor, { kind: 'study', id: event.params.id }, uuid.parse(values.upload));
+			return { ingested: { inserted: r.inserted, filled: r.filled, skipped: r.skipped } };
+		} catch (e) {
+			return formFailure(e, { ...values, _section: 'ingest' });
+		}
+	},
+	discardIngest: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'editor');
+		const values = await form(event);
+		try {
+			await discardUpload(db(), actor, { kind: 'study', id: event.params.id }, uuid.parse(values.upload));
+			return { discarded: true };
+		} catch (e) {
+			return formFailure(e, { ...values, _section: 'ingest' });
 		}
 	},
 	import: async (event) => {

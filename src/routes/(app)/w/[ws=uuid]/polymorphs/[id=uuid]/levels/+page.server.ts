@@ -3,16 +3,17 @@ import { z } from 'zod';
 import { requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { NotFoundError } from '$lib/server/errors';
-import { formFailure, MAX_UPLOAD_BYTES } from '$lib/server/http';
+import { formFailure, formFiles } from '$lib/server/http';
 import { measurementInput } from '$lib/schemas/measurement';
 import { levelsContext } from '$lib/server/services/levels';
 import { addMeasurement, deleteMeasurement } from '$lib/server/services/measurements';
 import { listBundles } from '$lib/server/services/bundles';
 import { listEstimates, saveEstimate } from '$lib/server/services/estimates';
 import { levelsQuery, substrateOf } from '$lib/schemas/levels';
-import { addReruns, deleteRerun, ingestReruns, listReruns } from '$lib/server/services/reruns';
+import { addReruns, deleteRerun, listReruns } from '$lib/server/services/reruns';
+import { confirmUpload, discardUpload, latestPendingUpload, previewUpload } from '$lib/server/services/output-uploads';
+import { canEdit } from '$lib/roles';
 import { HARTREE_EV } from '$lib/science/units';
-import { ValidationError } from '$lib/server/errors';
 import { getPolymorph } from '$lib/server/services/polymorphs';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -27,7 +28,7 @@ const rerunForm = z.object({
 });
 
 export const load: PageServerLoad = async (event) => {
-	await requireRole(event, event.params.ws, 'viewer');
+	const actor = await requireRole(event, event.params.ws, 'viewer');
 	let polymorph;
 	try {
 		polymorph = await getPolymorph(db(), event.params.ws, event.params.id);
@@ -37,7 +38,8 @@ export const load: PageServerLoad = async (event) => {
 	}
 	const context = await levelsContext(db(), event.params.ws, polymorph.id, polymorph.moleculeId);
 	const [bundles, reruns, estimates] = await Promise.all([listBundles(db(), event.params.ws, { polymorphId: polymorph.id }), listReruns(db(), event.params.ws, polymorph.id), listEstimates(db(), event.params.ws, polymorph.id)]);
-	return { polymorph, ...context, bundles, reruns, estimates };
+	const pendingUpload = canEdit(actor.role) ? await latestPendingUpload(db(), actor, { kind: 'polymorph', id: polymorph.id }) : null;
+	return { polymorph, ...context, bundles, reruns, estimates, pendingUpload };
 };
 
 export const actions: Actions = {
@@ -76,15 +78,31 @@ export const actions: Actions = {
 	},
 	uploadOutputs: async (event) => {
 		const actor = await requireRole(event, event.params.ws, 'editor');
-		const form = await event.request.formData();
-		const file = form.get('outputs');
 		try {
-			if (!(file instanceof File) || file.size === 0) throw new ValidationError('choose an NWChem output (.out) or a bundle zip with the outputs beside the decks', 'outputs');
-			if (file.size > MAX_UPLOAD_BYTES) throw new ValidationError(`the upload is ${(file.size / 1e6).toFixed(1)} MB, over the limit of ${MAX_UPLOAD_BYTES / 1e6} MB`, 'outputs');
-			const r = await ingestReruns(db(), actor, event.params.id, file.name, new Uint8Array(await file.arrayBuffer()));
-			return { saved: 'outputs', stored: r.stored.length, problems: r.problems.map((p) => `${p.file}: ${p.message}`) };
+			const files = await formFiles(await event.request.formData(), 'outputs');
+			return { upload: await previewUpload(db(), actor, { kind: 'polymorph', id: event.params.id }, files) };
 		} catch (e) {
-			return formFailure(e, {});
+			return formFailure(e, { _section: 'outputs' });
+		}
+	},
+	confirmOutputs: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'editor');
+		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
+		try {
+			const r = await confirmUpload(db(), actor, { kind: 'polymorph', id: event.params.id }, z.uuid('not a valid upload id').parse(values.upload));
+			return { saved: 'outputs', stored: r.inserted, skipped: r.skipped };
+		} catch (e) {
+			return formFailure(e, { ...values, _section: 'outputs' });
+		}
+	},
+	discardOutputs: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'editor');
+		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
+		try {
+			await discardUpload(db(), actor, { kind: 'polymorph', id: event.params.id }, z.uuid('not a valid upload id').parse(values.upload));
+			return { discarded: true };
+		} catch (e) {
+			return formFailure(e, { ...values, _section: 'outputs' });
 		}
 	},
 	deleteRerun: async (event) => {
