@@ -59,6 +59,7 @@ export const policy: Record<string, Need> = {
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/deleteRerun': 'editor',
 	'/(app)/w/[ws=uuid]/members GET': 'viewer',
 	'/(app)/w/[ws=uuid]/members ?/invite': 'owner',
+	'/(app)/w/[ws=uuid]/members ?/resendInvitation': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/role': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/remove': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/rename': 'owner',

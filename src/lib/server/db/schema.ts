@@ -81,6 +81,10 @@ export interface InvitationTable {
 	sent_at: Timestamp | null;
 	invited_by: string | null;
 	created_at: Timestamp;
+	/** E-mail sends tried so far, the time of the last one, and its error (null after a success). */
+	send_attempts: Generated<number>;
+	last_attempt_at: Timestamp | null;
+	last_send_error: string | null;
 }
 export interface RateLimitTable {
 	key: string;
