@@ -63,15 +63,17 @@ interface Timed {
 	retryAfter: string | null;
 }
 
-async function timed(path: string, init: RequestInit & { headers?: Record<string, string> } = {}): Promise<Timed> {
+type Init = Omit<RequestInit, 'headers'> & { headers?: Record<string, string> };
+
+async function timed(path: string, init: Init = {}): Promise<Timed> {
 	const t0 = performance.now();
 	const r = await fetch(`${base}${path}`, { redirect: 'manual', signal: AbortSignal.timeout(BOUND_MS + 5000), ...init, headers: { origin: base, ...(init.headers ?? {}) } });
 	const body = await r.text();
 	return { status: r.status, ms: performance.now() - t0, body, type: r.headers.get('content-type') ?? '', retryAfter: r.headers.get('retry-after') };
 }
 
-const asUser = (path: string, init: RequestInit & { headers?: Record<string, string> } = {}) => timed(path, { ...init, headers: { cookie, ...(init.headers ?? {}) } });
-const asToken = (path: string, init: RequestInit & { headers?: Record<string, string> } = {}) => timed(path, { ...init, headers: { authorization: `Bearer ${apiToken}`, ...(init.headers ?? {}) } });
+const asUser = (path: string, init: Init = {}) => timed(path, { ...init, headers: { cookie, ...(init.headers ?? {}) } });
+const asToken = (path: string, init: Init = {}) => timed(path, { ...init, headers: { authorization: `Bearer ${apiToken}`, ...(init.headers ?? {}) } });
 
 function expectDown(r: Timed, what: string) {
 	expect(r.status, `${what}: ${r.body.slice(0, 300)}`).toBe(503);

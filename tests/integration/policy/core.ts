@@ -58,6 +58,8 @@ export const policy: Record<string, Need> = {
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/uploadOutputs': 'editor',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/deleteRerun': 'editor',
 	'/(app)/w/[ws=uuid]/members GET': 'viewer',
+	'/(app)/w/[ws=uuid]/trash GET': 'viewer',
+	'/(app)/w/[ws=uuid]/trash ?/restore': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/invite': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/resendInvitation': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/role': 'owner',
