@@ -115,8 +115,14 @@ function startApp(port: number) {
 	return origin;
 }
 
-function stopChild(child: ChildProcess | undefined) {
-	if (child?.pid && child.exitCode === null && child.signalCode === null) child.kill('SIGTERM');
+/** SIGTERM, then SIGKILL if the process is still there after 5 s (a server with hung requests can linger). */
+async function stopChild(child: ChildProcess | undefined) {
+	if (!child?.pid || child.exitCode !== null || child.signalCode !== null) return;
+	const exited = new Promise<void>((r) => child.once('exit', () => r()));
+	child.kill('SIGTERM');
+	const timer = setTimeout(() => child.kill('SIGKILL'), 5000);
+	await exited;
+	clearTimeout(timer);
 }
 
 beforeAll(async () => {
@@ -157,8 +163,7 @@ beforeAll(async () => {
 }, 120_000);
 
 afterAll(async () => {
-	stopChild(app);
-	stopChild(smtp);
+	await Promise.all([stopChild(app), stopChild(smtp)]);
 	await db?.destroy().catch(() => undefined);
 	if (binDir && pgdata && existsSync(join(pgdata, 'postmaster.pid'))) stopPg(binDir, pgdata, 'immediate');
 	if (dir) rmSync(dir, { recursive: true, force: true });
