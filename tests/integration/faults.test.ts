@@ -162,11 +162,22 @@ beforeAll(async () => {
 	if (!cookie.includes('session-token=')) throw new Error(`sign-in failed (${r.status})`);
 }, 120_000);
 
-afterAll(async () => {
-	await Promise.all([stopChild(app), stopChild(smtp)]);
-	await db?.destroy().catch(() => undefined);
+/** Last resort if the worker ends without running afterAll: nothing of ours may outlive it. */
+function killEverythingNow() {
+	for (const c of [app, smtp]) if (c?.pid && c.exitCode === null && c.signalCode === null) c.kill('SIGKILL');
 	if (binDir && pgdata && existsSync(join(pgdata, 'postmaster.pid'))) stopPg(binDir, pgdata, 'immediate');
-	if (dir) rmSync(dir, { recursive: true, force: true });
+}
+process.once('exit', killEverythingNow);
+
+afterAll(async () => {
+	try {
+		await Promise.all([stopChild(app), stopChild(smtp)]);
+		await db?.destroy().catch(() => undefined);
+	} finally {
+		killEverythingNow();
+		process.removeListener('exit', killEverythingNow);
+		if (dir) rmSync(dir, { recursive: true, force: true });
+	}
 });
 
 describe('PostgreSQL stops and comes back while the server runs', () => {
@@ -196,16 +207,21 @@ describe('PostgreSQL stops and comes back while the server runs', () => {
 			doneAfterStop(asUser(`/w/${ws}/molecules`, { headers: { accept: 'text/html' } })),
 			doneAfterStop(asUser(`/w/${ws}/molecules/__data.json`))
 		];
-		// Poll from another session: pg_stat_activity is a snapshot that stays fixed inside the locker's transaction.
-		await waitFor('four app queries waiting on the lock', async () => {
-			const r = await sql<{ n: number }>`select count(*)::int as n from pg_stat_activity where wait_event_type = 'Lock' and datname = current_database()`.execute(db);
-			return r.rows[0].n >= 4 ? true : undefined;
-		});
-		stopAt = performance.now();
-		const stop = stopPg(binDir, pgdata, 'fast');
-		figures.stopSeconds = (performance.now() - stopAt) / 1000;
-		expect(stop.status, stop.stderr?.toString()).toBe(0);
-		await locker.end().catch(() => undefined);
+		const settled = Promise.allSettled(inflight); // no unhandled rejection if a step below fails first
+		try {
+			// Poll from another session: pg_stat_activity is a snapshot that stays fixed inside the locker's transaction.
+			await waitFor('four app queries waiting on the lock', async () => {
+				const r = await sql<{ n: number }>`select count(*)::int as n from pg_stat_activity where wait_event_type = 'Lock' and datname = current_database()`.execute(db);
+				return r.rows[0].n >= 4 ? true : undefined;
+			});
+			stopAt = performance.now();
+			const stop = stopPg(binDir, pgdata, 'fast');
+			figures.stopSeconds = (performance.now() - stopAt) / 1000;
+			expect(stop.status, stop.stderr?.toString()).toBe(0);
+		} finally {
+			await locker.end().catch(() => undefined);
+			await settled;
+		}
 		const [api, tok, page, data] = await Promise.all(inflight);
 		figures.inflightMaxMsAfterStop = Math.max(api.afterStopMs, tok.afterStopMs, page.afterStopMs, data.afterStopMs);
 		expectApiDown(api, 'API request in flight');
