@@ -5,16 +5,15 @@
 //   start: deps -> PostgreSQL (project-local cluster) -> migrate -> seed demo -> fake SMTP -> build -> serve
 //   test:  deps -> PostgreSQL (separate test cluster) -> Chromium -> svelte-check -> lint -> build
 //          -> server on a fresh database -> Vitest (unit + integration) -> end-to-end in Chromium
-import { spawn, spawnSync, execFileSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync, chmodSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { asPg, freePort, giveToPostgres, initCluster, isRoot, pgBinDir, portIsFree, startPg } from './pg-local.mjs';
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const DATA = join(ROOT, '.data');
-const isRoot = process.getuid?.() === 0;
 const mode = process.argv[2] ?? 'start';
 const children = [];
 let stopping = false;
@@ -58,15 +57,6 @@ function aptInstall(pkgs, before) {
 	log(`installed ${pkgs.join(', ')} in ${elapsed(t0)}`);
 }
 
-function pgBinDir() {
-	const base = '/usr/lib/postgresql';
-	if (!existsSync(base)) return null;
-	const versions = readdirSync(base)
-		.filter((v) => existsSync(join(base, v, 'bin', 'initdb')))
-		.sort((a, b) => Number(b) - Number(a));
-	return versions.length ? join(base, versions[0], 'bin') : null;
-}
-
 function ensurePostgresBinaries() {
 	let dir = pgBinDir();
 	if (dir) return dir;
@@ -85,61 +75,17 @@ function ensureChromium() {
 	aptInstall(['chromium']);
 }
 
-// ---------------------------------------------------------------- ports
-function freePort() {
-	return new Promise((res, rej) => {
-		const srv = createServer();
-		srv.unref();
-		srv.on('error', rej);
-		srv.listen(0, '127.0.0.1', () => {
-			const { port } = srv.address();
-			srv.close(() => res(port));
-		});
-	});
-}
-
-function portIsFree(port) {
-	return new Promise((res) => {
-		const srv = createServer();
-		srv.once('error', () => res(false));
-		srv.listen(port, '127.0.0.1', () => srv.close(() => res(true)));
-	});
-}
-
 // ---------------------------------------------------------------- PostgreSQL cluster
-function asPg(binary, args, opts = {}) {
-	const cmd = isRoot ? 'runuser' : binary;
-	const full = isRoot ? ['-u', 'postgres', '--', binary, ...args] : args;
-	return spawnSync(cmd, full, { encoding: 'utf8', cwd: '/', ...opts });
-}
-
-function makeEnterable(dir) {
-	// The postgres user must be able to enter every parent of the data folder.
-	if (!isRoot) return;
-	let d = dir;
-	while (d !== '/') {
-		const st = statSync(d);
-		if ((st.mode & 0o001) === 0) chmodSync(d, st.mode | 0o001);
-		d = dirname(d);
-	}
-}
-
 async function startCluster(name) {
 	const binDir = ensurePostgresBinaries();
 	const dir = join(DATA, name);
 	const pgdata = join(dir, 'pgdata');
 	const portFile = join(dir, 'port');
 	mkdirSync(dir, { recursive: true });
-	if (isRoot) {
-		const uid = Number(execFileSync('id', ['-u', 'postgres']).toString().trim());
-		const gid = Number(execFileSync('id', ['-g', 'postgres']).toString().trim());
-		makeEnterable(dir);
-		spawnSync('chown', [`${uid}:${gid}`, dir]);
-	}
+	giveToPostgres(dir);
 	if (!existsSync(join(pgdata, 'PG_VERSION'))) {
 		const t0 = Date.now();
-		const r = asPg(join(binDir, 'initdb'), ['-D', pgdata, '-U', 'postgres', '--auth=trust', '-E', 'UTF8', '--locale=C.UTF-8']);
-		if (r.status !== 0) throw new Error(`initdb failed:\n${r.stdout}\n${r.stderr}`);
+		initCluster(binDir, pgdata);
 		log(`initialised PostgreSQL cluster in ${pgdata} (${elapsed(t0)})`);
 	}
 	let port = existsSync(portFile) ? Number(readFileSync(portFile, 'utf8')) : 0;
@@ -154,12 +100,12 @@ async function startCluster(name) {
 	if (existsSync(stalePid)) rmSync(stalePid);
 	if (!port || !(await portIsFree(port))) port = await freePort();
 	writeFileSync(portFile, String(port));
-	const opts = `-p ${port} -k ${pgdata} -c listen_addresses=127.0.0.1` + (name.includes('test') ? ' -c fsync=off -c synchronous_commit=off -c full_page_writes=off' : '');
 	const t0 = Date.now();
-	const r = asPg(join(binDir, 'pg_ctl'), ['-D', pgdata, '-o', opts, '-l', join(pgdata, 'server.log'), '-w', 'start']);
-	if (r.status !== 0) {
+	try {
+		startPg(binDir, pgdata, port, { fast: name.includes('test') });
+	} catch (e) {
 		const logText = existsSync(join(pgdata, 'server.log')) ? readFileSync(join(pgdata, 'server.log'), 'utf8').slice(-2000) : '';
-		throw new Error(`PostgreSQL did not start:\n${r.stdout}\n${r.stderr}\n${logText}`);
+		throw new Error(`${e.message}\n${logText}`);
 	}
 	log(`PostgreSQL started on 127.0.0.1:${port} (${elapsed(t0)})`);
 	return { binDir, pgdata, port, startedHere: true };

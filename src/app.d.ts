@@ -5,6 +5,8 @@ declare global {
 			user: { id: string; email: string; name: string | null } | null;
 			/** Set when the request authenticated with a personal API token (Authorization: Bearer). */
 			token?: { id: string; workspaceId: string; role: 'owner' | 'editor' | 'viewer' };
+			/** Set when the request failed because PostgreSQL was unreachable: the response becomes a 503. */
+			databaseDown?: boolean;
 		}
 		interface Error {
 			message: string;

@@ -1,7 +1,8 @@
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import { json, type Handle, type HandleServerError, type RequestEvent } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle } from '$lib/server/auth';
 import { closeDb, db } from '$lib/server/db';
+import { DB_DOWN_MESSAGE, DB_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from '$lib/server/db/availability';
 import { apiError } from '$lib/server/http';
 import { hitRateLimit, TOKEN_RATE_LIMIT } from '$lib/server/rate-limit';
 import { authenticateToken } from '$lib/server/services/api-tokens';
@@ -41,19 +42,60 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(securityHeaders, bearerToken, authHandle, sessionUser);
+/**
+ * While PostgreSQL is down (stopped, restarting), every request that needs it answers 503 with
+ * Retry-After: a JSON error body on /api, the envelope SvelteKit's client expects for data and form
+ * requests, and a plain page otherwise. The pool reconnects by itself once the database is back.
+ * Errors thrown inside loads and actions reach `handleError` first, which flags the event.
+ */
+const databaseDown: Handle = async ({ event, resolve }) => {
+	let response: Response;
+	try {
+		response = await resolve(event);
+	} catch (e) {
+		if (!isDatabaseUnavailable(e)) throw e;
+		console.error(`[db] ${event.request.method} ${event.url.pathname}: database unavailable:`, (e as Error).message);
+		event.locals.databaseDown = true;
+		response = new Response(null, { status: 500 });
+	}
+	return event.locals.databaseDown ? databaseDownResponse(event) : response;
+};
+
+function databaseDownResponse(event: RequestEvent): Response {
+	const headers = { 'retry-after': String(DB_RETRY_AFTER_SECONDS), 'cache-control': 'no-store' };
+	let r: Response;
+	if (event.url.pathname.startsWith('/api/')) {
+		r = apiError(503, 'database_unavailable', DB_DOWN_MESSAGE);
+	} else if (event.isDataRequest) {
+		r = json(DB_DOWN_MESSAGE, { status: 503 });
+	} else if (event.request.headers.get('x-sveltekit-action') === 'true') {
+		r = json({ type: 'error', status: 503, error: { message: DB_DOWN_MESSAGE } }, { status: 503 });
+	} else {
+		r = new Response(DB_DOWN_PAGE, { status: 503, headers: { 'content-type': 'text/html; charset=utf-8' } });
+	}
+	for (const [k, v] of Object.entries(headers)) r.headers.set(k, v);
+	return r;
+}
+
+const DB_DOWN_PAGE = `<!doctype html>
+<html lang="en"><head><meta charset="utf-8"><title>Database unavailable · Kappaline</title></head>
+<body><h1>The database is unavailable</h1>
+<p>${DB_DOWN_MESSAGE}</p>
+<p><a href="">Try again</a></p></body></html>
+`;
+
+export const handle = sequence(securityHeaders, databaseDown, bearerToken, authHandle, sessionUser);
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
 	const id = crypto.randomUUID().slice(0, 8);
+	if (isDatabaseUnavailable(error)) {
+		event.locals.databaseDown = true;
+		console.error(`[db ${id}] ${event.request.method} ${event.url.pathname}: database unavailable:`, (error as Error).message);
+		return { message: DB_DOWN_MESSAGE, id };
+	}
 	if (status !== 404) console.error(`[error ${id}] ${event.request.method} ${event.url.pathname}:`, error);
-	const message = isDbDown(error) ? 'The database is not reachable right now; try again in a moment.' : 'Something went wrong on our side.';
-	return { message, id };
+	return { message: 'Something went wrong on our side.', id };
 };
-
-function isDbDown(e: unknown): boolean {
-	const code = (e as { code?: string })?.code;
-	return code === 'ECONNREFUSED' || code === '57P01' || code === '57P03';
-}
 
 process.on('sveltekit:shutdown', () => {
 	void closeDb();

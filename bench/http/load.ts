@@ -75,7 +75,8 @@ function percentile(sorted: number[], p: number): number {
 async function measure(name: string, opts: autocannon.Options): Promise<LoadFigure> {
 	const times: number[] = [];
 	let bad = 0;
-	const instance = autocannon({ ...opts, timeout: 10 });
+	// Without a callback autocannon returns its event-emitting instance, which is also a promise of the result.
+	const instance = autocannon({ ...opts, timeout: 10 }) as unknown as autocannon.Instance & Promise<autocannon.Result>;
 	instance.on('response', (_client: unknown, status: number, _bytes: number, ms: number) => {
 		times.push(ms);
 		if (status < 200 || status >= 300) bad++;

@@ -25,11 +25,18 @@ export class NotFoundError extends Error {
 	}
 }
 
+/** A record that blocks a delete, with the page where the user can deal with it. */
+export interface DependentLink {
+	label: string;
+	href: string;
+}
+
 /** Refused because other records depend on this one. */
 export class DependentsError extends Error {
 	constructor(
 		message: string,
-		readonly dependents: string[]
+		readonly dependents: string[],
+		readonly links: DependentLink[] = []
 	) {
 		super(message);
 		this.name = 'DependentsError';

@@ -1,7 +1,7 @@
 import { fail, isHttpError, isRedirect, json, type ActionFailure, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
 import { MAX_UPLOAD_BYTES } from '$lib/upload-limits';
-import { DependentsError, NotFoundError, StaleVersionError, UploadStateError, ValidationError } from './errors';
+import { DependentsError, NotFoundError, StaleVersionError, UploadStateError, ValidationError, type DependentLink } from './errors';
 
 /** The JSON error body every /api/v1 route uses. */
 export interface ApiErrorBody {
@@ -64,7 +64,7 @@ export function expectedVersion(event: RequestEvent, bodyVersion?: unknown): num
 }
 
 /** Domain errors in form actions become fail() with a message (and field) the page shows. */
-export function formFailure<T extends Record<string, unknown>>(e: unknown, values: T): ActionFailure<{ values: T; message: string; errors: Record<string, string[]> }> {
+export function formFailure<T extends Record<string, unknown>>(e: unknown, values: T): ActionFailure<{ values: T; message: string; errors: Record<string, string[]>; dependents?: DependentLink[] }> {
 	if (e instanceof z.ZodError) {
 		return fail(400, { values, message: 'Please correct the marked fields.', errors: z.flattenError(e).fieldErrors as Record<string, string[]> });
 	}
@@ -73,7 +73,7 @@ export function formFailure<T extends Record<string, unknown>>(e: unknown, value
 		return fail(400, { values, message: msg, errors: e.field ? { [e.field]: [msg] } : {} });
 	}
 	if (e instanceof StaleVersionError) return fail(409, { values, message: e.message, errors: {} });
-	if (e instanceof DependentsError) return fail(409, { values, message: `${e.message}: ${e.dependents.join(', ')}`, errors: {} });
+	if (e instanceof DependentsError) return fail(409, { values, message: `${e.message}: ${e.dependents.join(', ')}`, errors: {}, dependents: e.links });
 	if (e instanceof NotFoundError) return fail(404, { values, message: e.message, errors: {} });
 	if (e instanceof UploadStateError) return fail(e.status, { values, message: e.message, errors: {} });
 	throw e;

@@ -10,7 +10,12 @@ export function smtpServerConfig() {
 		port: e.SMTP_PORT,
 		secure,
 		ignoreTLS: !secure && e.KAPPALINE_DEV_MAIL === '1',
-		auth: e.SMTP_USER ? { user: e.SMTP_USER, pass: e.SMTP_PASSWORD ?? '' } : undefined
+		auth: e.SMTP_USER ? { user: e.SMTP_USER, pass: e.SMTP_PASSWORD ?? '' } : undefined,
+		// Bounded waits: an unreachable mail server fails the send in seconds (the invitation stays
+		// stored, marked unsent) instead of holding the request for nodemailer's default minutes.
+		connectionTimeout: 10_000,
+		greetingTimeout: 10_000,
+		socketTimeout: 20_000
 	};
 }
 

@@ -1,6 +1,7 @@
 import type { Need } from './types';
 import type { Db } from '../../../src/lib/server/db/create-db';
 import { createBundle } from '../../../src/lib/server/services/bundles';
+import { createPolymorph, deletePolymorph } from '../../../src/lib/server/services/polymorphs';
 import { bundleRequest } from '../../../src/lib/schemas/bundle';
 
 /** Foundation routes: `${routeId} ${GET|POST|PATCH|DELETE|?/action}` -> the least role allowed. */
@@ -58,7 +59,12 @@ export const policy: Record<string, Need> = {
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/uploadOutputs': 'editor',
 	'/(app)/w/[ws=uuid]/polymorphs/[id=uuid]/levels ?/deleteRerun': 'editor',
 	'/(app)/w/[ws=uuid]/members GET': 'viewer',
+	'/(app)/w/[ws=uuid]/trash GET': 'viewer',
+	'/(app)/w/[ws=uuid]/trash ?/restore': 'owner',
+	'/api/v1/workspaces/[ws=uuid]/trash GET': 'viewer',
+	'/api/v1/workspaces/[ws=uuid]/trash/[id=uuid]/restore POST': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/invite': 'owner',
+	'/(app)/w/[ws=uuid]/members ?/resendInvitation': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/role': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/remove': 'owner',
 	'/(app)/w/[ws=uuid]/members ?/rename': 'owner',
@@ -83,6 +89,11 @@ export const policy: Record<string, Need> = {
 
 /** Records that the foundation's id routes need besides the molecule and polymorph. */
 export async function seed(db: Db, fx: { ws: string; owner: { id: string }; molecule: { id: string } }): Promise<Record<string, string>> {
-	const { record } = await createBundle(db, { userId: fx.owner.id, workspaceId: fx.ws, role: 'owner' }, bundleRequest.parse({ moleculeId: fx.molecule.id, alpha: 0.2, tuningGammas: [0.3] }));
-	return { bundles: record.id };
+	const actor = { userId: fx.owner.id, workspaceId: fx.ws, role: 'owner' as const };
+	const { record } = await createBundle(db, actor, bundleRequest.parse({ moleculeId: fx.molecule.id, alpha: 0.2, tuningGammas: [0.3] }));
+	// A record in the trash, for the restore route.
+	const p = await createPolymorph(db, actor, fx.molecule.id, { label: 'trashed for the role matrix', spaceGroup: 'P1', a: 5, b: 5, c: 5, alphaDeg: 90, betaDeg: 90, gammaDeg: 90, z: 1, structureSource: '', notes: '' });
+	await deletePolymorph(db, actor, p.id);
+	const trashed = await db.selectFrom('deleted_record').select('id').where('entity_id', '=', p.id).executeTakeFirstOrThrow();
+	return { bundles: record.id, trash: trashed.id };
 }

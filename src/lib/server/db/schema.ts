@@ -2,6 +2,7 @@ import type { TuningTables } from './schema-tuning';
 import type { DielectricTables } from './schema-dielectric';
 import type { LevelsTables } from './schema-levels';
 import type { ApiTables } from './schema-api';
+import type { TrashTables } from './schema-trash';
 import type { ColumnType, Generated, Insertable, Selectable, Updateable } from 'kysely';
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
@@ -81,6 +82,10 @@ export interface InvitationTable {
 	sent_at: Timestamp | null;
 	invited_by: string | null;
 	created_at: Timestamp;
+	/** E-mail sends tried so far, the time of the last one, and its error (null after a success). */
+	send_attempts: Generated<number>;
+	last_attempt_at: Timestamp | null;
+	last_send_error: string | null;
 }
 export interface RateLimitTable {
 	key: string;
@@ -156,7 +161,7 @@ export interface CoreTables {
 	activity: ActivityTable;
 }
 
-export interface Database extends CoreTables, TuningTables, DielectricTables, LevelsTables, ApiTables {}
+export interface Database extends CoreTables, TuningTables, DielectricTables, LevelsTables, ApiTables, TrashTables {}
 
 export type MoleculeRow = Selectable<MoleculeTable>;
 export type NewMoleculeRow = Insertable<MoleculeTable>;

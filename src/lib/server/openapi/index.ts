@@ -4,6 +4,7 @@ import './core';
 import './dielectric';
 import './tuning';
 import './levels';
+import './trash';
 import { allOperations, buildDocument } from './registry';
 
 let cached: ReturnType<typeof buildDocument> | undefined;

@@ -57,7 +57,8 @@ export function buildDocument(version: string) {
 			401: { description: 'no session and no valid token', content: errorContent },
 			403: { description: `the caller's role is below ${op.role}`, content: errorContent },
 			404: { description: 'not found, or not in a workspace the caller belongs to', content: errorContent },
-			429: { description: 'token rate limit hit; see Retry-After', content: errorContent }
+			429: { description: 'token rate limit hit; see Retry-After', content: errorContent },
+			503: { description: 'the database is unreachable (e.g. restarting); nothing was changed: retry after Retry-After seconds', content: errorContent }
 		};
 		if (op.method === 'patch' || op.method === 'put' || op.method === 'delete')
 			responses[412] = { description: 'If-Match does not match the current version: reload and retry', content: errorContent };

@@ -8,7 +8,7 @@ export interface ActivityInput {
 	action:
 		| 'create' | 'update' | 'delete' | 'invite' | 'join' | 'role' | 'remove' | 'rename'
 		| 'cif_import' | 'cif_replace' | 'dielectric_add' | 'dielectric_delete' | 'choose_epsilon'
-		| 'import' | 'exclude' | 'include' | 'mark-current' | 'save-result';
+		| 'import' | 'exclude' | 'include' | 'mark-current' | 'save-result' | 'restore';
 	summary: string;
 	before?: unknown;
 	after?: unknown;

@@ -93,7 +93,8 @@ export async function resetPassword(db: Executor, token: string, password: strin
 	});
 }
 
-const INVITE_DAYS = 7;
+/** Days an invitation link stays valid (from its creation or its last resend). */
+export const INVITE_DAYS = 7;
 
 export async function createInvitation(db: Executor, workspaceId: string, invitedBy: string, email: string, role: Role) {
 	const { token, hash } = newToken();
@@ -107,10 +108,6 @@ export async function createInvitation(db: Executor, workspaceId: string, invite
 		return row;
 	});
 	return { ...inv, token };
-}
-
-export async function markInvitationSent(db: Executor, id: string) {
-	await db.updateTable('invitation').set({ sent_at: new Date() }).where('id', '=', id).execute();
 }
 
 export async function findInvitation(db: Executor, token: string) {

@@ -18,6 +18,7 @@ import { logActivity } from '../repo/activity';
 import type { Actor } from './actor';
 import { getPolymorph } from './polymorphs';
 import { inTransaction } from '../db/transaction';
+import { moveToTrash } from './trash';
 
 /** Shown wherever a static constant is entered or chosen. */
 export const STATIC_EPSILON_NOTE =
@@ -288,7 +289,7 @@ export async function deleteDielectricEntry(db: Executor, actor: Actor, polymorp
 		if (expectedVersion !== undefined && e.version !== expectedVersion) throw new StaleVersionError('dielectric entry');
 		const inUse = await tx.selectFrom('polymorph_epsilon').select('entry_id').where('polymorph_id', '=', polymorphId).where('entry_id', '=', entryId).executeTakeFirst();
 		if (inUse) throw new DependentsError('this entry is the polymorph’s epsilon in use; choose another entry first, then delete it', ['epsilon in use']);
-		await tx.deleteFrom('dielectric_entry').where('id', '=', entryId).execute();
+		await moveToTrash(tx, actor, { entity: 'dielectric entry', table: 'dielectric_entry', id: entryId, label: `${KIND_LABEL[e.kind]} ε = ${round(e.epsilon)} (${e.frequency}) of ${p.label}`, parentHref: `/w/${actor.workspaceId}/polymorphs/${polymorphId}` });
 		await logActivity(tx, {
 			workspaceId: actor.workspaceId,
 			actorId: actor.userId,

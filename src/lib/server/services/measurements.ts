@@ -4,6 +4,7 @@ import { logActivity } from '../repo/activity';
 import { NotFoundError } from '../errors';
 import type { Actor } from './actor';
 import { inTransaction } from '../db/transaction';
+import { moveToTrash } from './trash';
 
 export interface Measurement {
 	id: string;
@@ -87,8 +88,9 @@ export async function addMeasurement(db: Executor, actor: Actor, polymorphId: st
 
 export async function deleteMeasurement(db: Executor, actor: Actor, polymorphId: string, id: string): Promise<void> {
 	await inTransaction(db, async (tx) => {
-		const r = await tx.deleteFrom('measurement').where('workspace_id', '=', actor.workspaceId).where('polymorph_id', '=', polymorphId).where('id', '=', id).returning(['method']).executeTakeFirst();
+		const r = await tx.selectFrom('measurement as m').innerJoin('polymorph as p', 'p.id', 'm.polymorph_id').select(['m.method', 'p.label']).where('m.workspace_id', '=', actor.workspaceId).where('m.polymorph_id', '=', polymorphId).where('m.id', '=', id).forUpdate().executeTakeFirst();
 		if (!r) throw new NotFoundError('measurement');
-		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'polymorph', entityId: polymorphId, action: 'update', summary: `removed a ${r.method} measurement` });
+		await moveToTrash(tx, actor, { entity: 'measurement', table: 'measurement', id, label: `${r.method} measurement of ${r.label}`, parentHref: `/w/${actor.workspaceId}/polymorphs/${polymorphId}/levels` });
+		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'polymorph', entityId: polymorphId, action: 'update', summary: `removed a ${r.method} measurement of ${r.label} (to the trash)` });
 	});
 }

@@ -7,6 +7,7 @@ import { logActivity } from '../repo/activity';
 import { DependentsError, NotFoundError, StaleVersionError, ValidationError } from '../errors';
 import type { Actor } from './actor';
 import { inTransaction } from '../db/transaction';
+import { moveToTrash } from './trash';
 
 export interface Molecule {
 	id: string;
@@ -199,13 +200,19 @@ export async function deleteMolecule(db: Executor, actor: Actor, id: string, exp
 		const current = await tx.selectFrom('molecule').selectAll().where('workspace_id', '=', actor.workspaceId).where('id', '=', id).forUpdate().executeTakeFirst();
 		if (!current) throw new NotFoundError('molecule');
 		if (expectedVersion !== undefined && current.version !== expectedVersion) throw new StaleVersionError('molecule');
-		const deps = await tx.selectFrom('polymorph').select('label').where('molecule_id', '=', id).execute();
-		if (deps.length)
-			throw new DependentsError(`molecule ${current.name} still has ${deps.length} polymorph(s): delete them first`, deps.map((d) => `polymorph ${d.label}`));
-		const studies = await tx.selectFrom('tuning_study').select('name').where('molecule_id', '=', id).execute();
-		if (studies.length)
-			throw new DependentsError(`molecule ${current.name} still has ${studies.length} tuning study(ies): delete them first`, studies.map((d) => `tuning study ${d.name}`));
-		await tx.deleteFrom('molecule').where('id', '=', id).execute();
+		// A molecule's polymorphs and studies are results in their own right: refuse, and list them with links,
+		// rather than take them along. Once they are deleted (to the trash) the molecule can go too.
+		const polymorphs = await tx.selectFrom('polymorph').select(['id', 'label']).where('molecule_id', '=', id).orderBy('label').execute();
+		const studies = await tx.selectFrom('tuning_study').select(['id', 'name']).where('molecule_id', '=', id).orderBy('name').execute();
+		if (polymorphs.length || studies.length) {
+			const parts = [polymorphs.length ? `${polymorphs.length} ${polymorphs.length === 1 ? 'polymorph' : 'polymorphs'}` : '', studies.length ? `${studies.length} ${studies.length === 1 ? 'tuning study' : 'tuning studies'}` : ''].filter(Boolean);
+			throw new DependentsError(
+				`molecule ${current.name} still has ${parts.join(' and ')}: delete them first (they go to the trash, where an owner can restore them)`,
+				[...polymorphs.map((p) => `polymorph ${p.label}`), ...studies.map((s) => `tuning study ${s.name}`)],
+				[...polymorphs.map((p) => ({ label: `polymorph ${p.label}`, href: `/w/${actor.workspaceId}/polymorphs/${p.id}` })), ...studies.map((s) => ({ label: `tuning study ${s.name}`, href: `/w/${actor.workspaceId}/studies/${s.id}` }))]
+			);
+		}
+		await moveToTrash(tx, actor, { entity: 'molecule', table: 'molecule', id, label: current.name, parentHref: `/w/${actor.workspaceId}/molecules` });
 		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'molecule', entityId: id, action: 'delete', summary: `deleted molecule ${current.name}`, before: snapshot(toMolecule(current)) });
 	});
 }

@@ -7,6 +7,7 @@ import { logActivity } from '../repo/activity';
 import { NotFoundError, StaleVersionError, ValidationError } from '../errors';
 import type { Actor } from './actor';
 import { inTransaction } from '../db/transaction';
+import { moveToTrash } from './trash';
 
 export interface Polymorph {
 	id: string;
@@ -197,7 +198,7 @@ export async function deletePolymorph(db: Executor, actor: Actor, id: string, ex
 		const current = await tx.selectFrom('polymorph').selectAll().where('workspace_id', '=', actor.workspaceId).where('id', '=', id).forUpdate().executeTakeFirst();
 		if (!current) throw new NotFoundError('polymorph');
 		if (expectedVersion !== undefined && current.version !== expectedVersion) throw new StaleVersionError('polymorph');
-		await tx.deleteFrom('polymorph').where('id', '=', id).execute();
-		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'polymorph', entityId: id, action: 'delete', summary: `deleted polymorph ${current.label}`, before: snapshot(toPolymorph(current, null)) });
+		const { contents } = await moveToTrash(tx, actor, { entity: 'polymorph', table: 'polymorph', id, label: current.label, parentHref: `/w/${actor.workspaceId}/molecules/${current.molecule_id}` });
+		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'polymorph', entityId: id, action: 'delete', summary: `deleted polymorph ${current.label} to the trash with ${contents}`, before: snapshot(toPolymorph(current, null)) });
 	});
 }

@@ -5,6 +5,7 @@ import { NotFoundError, ValidationError } from '../errors';
 import { logActivity } from '../repo/activity';
 import type { Actor } from './actor';
 import { inTransaction } from '../db/transaction';
+import { moveToTrash } from './trash';
 
 export interface RerunResult {
 	id: string;
@@ -68,6 +69,11 @@ export async function addReruns(db: Executor, actor: Actor, polymorphId: string,
 }
 
 export async function deleteRerun(db: Executor, actor: Actor, polymorphId: string, id: string): Promise<void> {
-	const r = await db.deleteFrom('rerun_result').where('workspace_id', '=', actor.workspaceId).where('polymorph_id', '=', polymorphId).where('id', '=', id).executeTakeFirst();
-	if (!r.numDeletedRows) throw new NotFoundError('rerun result');
+	await inTransaction(db, async (tx) => {
+		const r = await tx.selectFrom('rerun_result as r').innerJoin('polymorph as p', 'p.id', 'r.polymorph_id').select(['r.epsilon', 'r.gamma_bohr_inv', 'p.label']).where('r.workspace_id', '=', actor.workspaceId).where('r.polymorph_id', '=', polymorphId).where('r.id', '=', id).forUpdate().executeTakeFirst();
+		if (!r) throw new NotFoundError('rerun result');
+		const label = `screened rerun ε = ${r.epsilon}, γ = ${r.gamma_bohr_inv} bohr⁻¹ of ${r.label}`;
+		await moveToTrash(tx, actor, { entity: 'rerun result', table: 'rerun_result', id, label, parentHref: `/w/${actor.workspaceId}/polymorphs/${polymorphId}/levels` });
+		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'polymorph', entityId: polymorphId, action: 'update', summary: `removed a ${label} (to the trash)` });
+	});
 }

@@ -11,6 +11,7 @@ import { logActivity } from '../repo/activity';
 import { NotFoundError, StaleVersionError, ValidationError } from '../errors';
 import type { Actor } from './actor';
 import { inTransaction } from '../db/transaction';
+import { moveToTrash } from './trash';
 
 /** A stored analysis: exactly what tuningAnalysis returned when the result was saved. */
 export type StoredTuningResult = TuningAnalysis;
@@ -265,8 +266,8 @@ export async function deleteStudy(db: Executor, actor: Actor, id: string, expect
 	await inTransaction(db, async (tx) => {
 		const current = await studyRow(tx, actor.workspaceId, id, true);
 		if (expectedVersion !== undefined && current.version !== expectedVersion) throw new StaleVersionError('tuning study');
-		await tx.deleteFrom('tuning_study').where('id', '=', id).execute();
-		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'tuning_study', entityId: id, action: 'delete', summary: `deleted tuning study ${current.name} of ${current.molecule_name}`, before: studySnapshot(toStudy(current, current.molecule_name)) });
+		const { contents } = await moveToTrash(tx, actor, { entity: 'tuning study', table: 'tuning_study', id, label: `${current.name} (${current.molecule_name})`, parentHref: `/w/${actor.workspaceId}/molecules/${current.molecule_id}` });
+		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'tuning_study', entityId: id, action: 'delete', summary: `deleted tuning study ${current.name} of ${current.molecule_name} to the trash with ${contents}`, before: studySnapshot(toStudy(current, current.molecule_name)) });
 	});
 }
 

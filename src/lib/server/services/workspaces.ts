@@ -45,7 +45,10 @@ export async function deleteWorkspace(db: Executor, actor: Actor, confirmName: s
 		const w = await tx.selectFrom('workspace').select('name').where('id', '=', actor.workspaceId).forUpdate().executeTakeFirst();
 		if (!w) throw new NotFoundError('workspace');
 		if (w.name !== confirmName.trim()) throw new ValidationError(`type the workspace's name (${w.name}) to confirm`, 'confirm');
+		// Explicit, typed-name confirmed and owner-only: the one delete that does not go to the trash (the
+		// trash is the workspace's own). Children first: polymorphs and studies block their molecule's delete.
 		await tx.deleteFrom('polymorph').where('workspace_id', '=', actor.workspaceId).execute();
+		await tx.deleteFrom('tuning_study').where('workspace_id', '=', actor.workspaceId).execute();
 		await tx.deleteFrom('molecule').where('workspace_id', '=', actor.workspaceId).execute();
 		await tx.deleteFrom('workspace').where('id', '=', actor.workspaceId).execute();
 	});

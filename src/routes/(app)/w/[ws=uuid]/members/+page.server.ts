@@ -7,24 +7,15 @@ import { publicOrigin } from '$lib/server/env';
 import { formFailure } from '$lib/server/http';
 import { sendMail } from '$lib/server/mail';
 import { listMembers } from '$lib/server/repo/workspaces';
-import { createInvitation, markInvitationSent } from '$lib/server/services/accounts';
+import { createInvitation } from '$lib/server/services/accounts';
+import { deliverInvitation, listInvitations, resendInvitation } from '$lib/server/services/invitations';
 import { changeRole, deleteWorkspace, removeMember, renameWorkspace } from '$lib/server/services/workspaces';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = await requireRole(event, event.params.ws, 'viewer');
 	const members = await listMembers(db(), event.params.ws);
-	const invitations =
-		actor.role === 'owner'
-			? await db()
-					.selectFrom('invitation')
-					.select(['id', 'email', 'role', 'expires_at', 'accepted_at', 'sent_at', 'created_at'])
-					.where('workspace_id', '=', event.params.ws)
-					.where('revoked_at', 'is', null)
-					.orderBy('created_at', 'desc')
-					.limit(50)
-					.execute()
-			: [];
+	const invitations = actor.role === 'owner' ? await listInvitations(db(), event.params.ws) : [];
 	const ws = await db().selectFrom('workspace').select('version').where('id', '=', event.params.ws).executeTakeFirstOrThrow();
 	return { members, invitations, workspaceVersion: ws.version, me: actor.userId };
 };
@@ -38,14 +29,17 @@ export const actions: Actions = {
 		try {
 			const input = inviteSchema.parse(values);
 			const inv = await createInvitation(db(), actor.workspaceId, actor.userId, input.email, input.role);
-			const link = `${publicOrigin()}/invite/${inv.token}`;
-			try {
-				await sendMail(inv.email, `You are invited to ${actor.workspaceName} on Kappaline`, `You have been invited to the Kappaline workspace "${actor.workspaceName}" as ${inv.role}.\n\nAccept within 7 days (single use):\n\n${link}\n`);
-				await markInvitationSent(db(), inv.id);
-			} catch {
-				return { invited: inv.email, unsent: true, link };
-			}
-			return { invited: inv.email };
+			return { delivery: await deliverInvitation(db(), actor, inv, publicOrigin(), sendMail) };
+		} catch (e) {
+			return formFailure(e, values);
+		}
+	},
+	/** Sends an unsent (or lost) invitation again, with a new link; the attempt and its outcome are recorded. */
+	resendInvitation: async (event) => {
+		const actor = await requireRole(event, event.params.ws, 'owner');
+		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
+		try {
+			return { delivery: await resendInvitation(db(), actor, z.uuid().parse(values.id), publicOrigin(), sendMail) };
 		} catch (e) {
 			return formFailure(e, values);
 		}
