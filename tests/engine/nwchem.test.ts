@@ -21,7 +21,7 @@
  * missing and runs this file as the step "engine runs (NWChem)" (tests/engine/vitest.config.ts).
  */
 import { spawnSync } from 'node:child_process';
-import { chmodSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { chmodSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, relative } from 'node:path';
 import JSZip from 'jszip';
@@ -131,6 +131,24 @@ function screenedDeck(name: string, alpha: number, epsilon: number) {
 	return writeNwchemScreenedJob({ jobName: name, molecule: MOLECULE, alpha, gammaBohrInv: RERUN_GAMMA, epsilon, provenance: PROVENANCE, settings: SETTINGS });
 }
 
+/** Is a command on the PATH? */
+function onPath(name: string): boolean {
+	return (process.env.PATH ?? '').split(':').some((d) => d && existsSync(join(d, name)));
+}
+
+/** Unzip a planned bundle into dir (scripts executable); returns the bundle's root folder. */
+async function unzipBundle(plan: BundlePlan, dir: string): Promise<string> {
+	const zip = await JSZip.loadAsync(await zipBundle(plan));
+	for (const entry of Object.values(zip.files)) {
+		if (entry.dir) continue;
+		const path = join(dir, entry.name);
+		mkdirSync(dirname(path), { recursive: true });
+		writeFileSync(path, await entry.async('uint8array'));
+		if (entry.unixPermissions !== null && (Number(entry.unixPermissions) & 0o111) !== 0) chmodSync(path, 0o755);
+	}
+	return join(dir, plan.rootFolder);
+}
+
 /** Every file under dir, as zip entries named relative to base. */
 function addFolder(zip: JSZip, dir: string, base: string): void {
 	for (const name of readdirSync(dir)) {
@@ -190,16 +208,8 @@ describe('a scan bundle run with its own run-local.sh, zipped, ingested and anal
 			study: 'engine test'
 		};
 		plan = await planBundle(input);
-		const zip = await JSZip.loadAsync(await zipBundle(plan));
 		const bundleDir = join(work, 'bundle');
-		for (const entry of Object.values(zip.files)) {
-			if (entry.dir) continue;
-			const path = join(bundleDir, entry.name);
-			mkdirSync(dirname(path), { recursive: true });
-			writeFileSync(path, await entry.async('uint8array'));
-			if (entry.unixPermissions !== null && (Number(entry.unixPermissions) & 0o111) !== 0) chmodSync(path, 0o755);
-		}
-		root = join(bundleDir, plan.rootFolder);
+		root = await unzipBundle(plan, bundleDir);
 		const t0 = performance.now();
 		const r = spawnSync(join(root, 'run-local.sh'), [], {
 			cwd: work,
@@ -291,5 +301,59 @@ describe('a scan bundle run with its own run-local.sh, zipped, ingested and anal
 		const gas = ingested.scanPoints.find((p) => p.gammaBohrInv === RERUN_GAMMA)!;
 		console.log(`[engine] epsilon 6 (beta = ${eps6.beta.toFixed(6)}): E = ${eps6.totalEnergyHartree} Ha, HOMO ${eps6.homoHartree} vs gas ${gas.homoNeutralHartree} Ha`);
 		expect(eps6.homoHartree).toBeGreaterThan(gas.homoNeutralHartree!);
+	});
+});
+
+describe('Psi4 bundle scripts', () => {
+	const psi4Input = (): BundleInput => ({
+		engine: 'psi4',
+		molecule: { name: 'water', ...MOLECULE },
+		jobName: 'water',
+		alpha: 0.2,
+		tuning: { gammasBohrInv: [0.3], layout: 'combined' },
+		screened: { gammaBohrInv: RERUN_GAMMA, epsilons: [3] },
+		settings: { basis: '6-31G*', memoryMb: 500 },
+		scripts: { cores: 1 },
+		appVersion: '0.1.0',
+		createdAt: '2026-12-02T00:00:00.000Z'
+	});
+
+	it('every script of a Psi4 and an NWChem bundle passes bash -n', async () => {
+		for (const engine of ['psi4', 'nwchem'] as const) {
+			const plan = await planBundle({ ...psi4Input(), engine, settings: { basis: '6-31G*', memoryMb: 500 } });
+			for (const f of plan.files.filter((x) => x.role === 'script')) {
+				const r = spawnSync('bash', ['-n', '-c', f.text], { encoding: 'utf8' });
+				expect(r.stderr, `${engine} ${f.path}`).toBe('');
+				expect(r.status, `${engine} ${f.path}`).toBe(0);
+			}
+		}
+	});
+
+	// Psi4 is not installed by npm test; where it is (Debian 12: psi4 1.3.2, whose Python module sits
+	// in /usr/lib/x86_64-linux-gnu), the bundle's run-local.sh runs it. 1.3.2 stops at set_omega
+	// (fixtures/README.md), so the script must report the decks as failed, not finished.
+	it.skipIf(!onPath('psi4'))('run-local.sh of a Psi4 bundle runs psi4 on every input and tells finished from failed', async () => {
+		const plan = await planBundle(psi4Input());
+		const root = await unzipBundle(plan, join(work, 'psi4-bundle'));
+		const t0 = performance.now();
+		const r = spawnSync('bash', [join(root, 'run-local.sh')], {
+			encoding: 'utf8',
+			env: { ...process.env, PYTHONPATH: [process.env.PYTHONPATH, '/usr/lib/x86_64-linux-gnu'].filter(Boolean).join(':') }
+		});
+		timings.push(`Psi4 run-local.sh, 2 inputs: ${seconds(t0).toFixed(1)} s`);
+		const out = readFileSync(join(root, 'screened/eps3p000/neutral.out'), 'utf8');
+		const version = /Psi4 (\d+)\.(\d+)(?:\.\d+)? release/.exec(out);
+		expect(version, out.slice(0, 2000)).not.toBeNull();
+		const [major, minor] = [Number(version![1]), Number(version![2])];
+		console.log(`[engine] Psi4 ${major}.${minor}: run-local.sh exit ${r.status}\n${r.stdout}`);
+		if (major === 1 && minor < 4) {
+			expect(out).toContain('set_omega not implemented');
+			expect(r.stdout).toContain('[2/2] screened/eps3p000/neutral.in: FAILED, see screened/eps3p000/neutral.out');
+			expect(r.stdout).toContain('0 of 2 decks finished; 2 failed.');
+			expect(r.status).not.toBe(0);
+		} else {
+			expect(r.stdout).toContain('2 of 2 decks finished; 0 failed.');
+			expect(out).toContain('Psi4 exiting successfully');
+		}
 	});
 });

@@ -29,3 +29,6 @@ export function so2BundleInput(over: Partial<BundleInput> = {}): BundleInput {
 		...over
 	};
 }
+
+/** The files at the top of every bundle, in zip order. */
+export const BUNDLE_TOP_FILES = ['README.txt', 'manifest.json', 'run-local.sh', 'submit-slurm.sh', 'submit-pbs.sh'];

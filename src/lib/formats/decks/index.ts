@@ -70,12 +70,19 @@ export {
 } from './nwchem-output';
 export {
 	DEFAULT_PSI4_SETTINGS,
+	PSI4_MIN_VERSION,
+	PSI4_VERSION_NOTE,
 	type Psi4Deck,
+	type Psi4DeckOptions,
 	type Psi4ScreenedJob,
 	type Psi4Settings,
 	type Psi4TuningJob,
+	type Psi4TuningScan,
 	psi4FunctionalDict,
 	writePsi4ScreenedJob,
-	writePsi4TuningJob
+	writePsi4TuningJob,
+	writePsi4TuningScan,
+	writePsi4TuningStateDecks
 } from './psi4';
+export { type DeckFileNames, type ScanLayout, checkScanGammas } from './scan';
 export { DECK_MANIFEST_SCHEMA, type DeckManifest, type DeckManifestEntry, deckManifest } from './manifest';
