@@ -11,7 +11,7 @@ import { readNwchemOutput } from '../decks';
 import { planBundle, zipBundle } from './build';
 import { ArchiveError, ManifestError } from './errors';
 import { ingestOutputs } from './ingest';
-import { so2BundleInput } from './so2.testdata';
+import { scanPointOf, so2BundleInput } from './so2.testdata';
 
 // Real NWChem 7.0.2 outputs from decks/fixtures (see its README.md): the SO2 tuning decks at gamma
 // 0.2, 0.3, 0.4 bohr^-1 (three states per deck, alpha 0.2), the screened rerun at epsilon 3, an
@@ -22,16 +22,7 @@ const scanInput = () =>
 
 /** The values the tuning module needs, read straight from a fixture with the output reader. */
 function expectedPoint(text: string, gammaBohrInv: number) {
-	const [n, c, a] = readNwchemOutput(text).tasks;
-	return {
-		gammaBohrInv,
-		eNeutralHartree: n.totalEnergyHartree,
-		eCationHartree: c.totalEnergyHartree,
-		eAnionHartree: a.totalEnergyHartree,
-		homoNeutralHartree: n.homoHartree,
-		lumoNeutralHartree: n.lumoHartree,
-		homoAnionHartree: a.homoHartree
-	};
+	return scanPointOf(gammaBohrInv, readNwchemOutput(text).tasks);
 }
 
 /** Build the bundle, then add outputs (paths relative to the bundle folder) as a user would. */
@@ -203,11 +194,30 @@ describe('per-file problems', () => {
 		expect(r.screened[0].epsilon).toBeCloseTo(3, 9);
 	});
 
-	it('an output of another engine: parse error', async () => {
-		const r = await ingestOutputs({ name: 'psi4.out', bytes: psi4Out });
+	it('an output of an unknown engine: parse error naming the engines read', async () => {
+		const r = await ingestOutputs({ name: 'other.out', bytes: 'SCF Done:  E(RB3LYP) =  -76.4\n Normal termination\n' });
 		expect(r.problems).toEqual([
-			{ code: 'parse-error', severity: 'error', file: 'psi4.out', message: 'not an NWChem output: no "Northwest Computational Chemistry Package (NWChem)" banner' }
+			{ code: 'parse-error', severity: 'error', file: 'other.out', message: "not an NWChem or Psi4 output: neither engine's banner was found (Kappaline reads NWChem 7.x and Psi4 outputs)" }
 		]);
+	});
+
+	it('a Psi4 output without a manifest: read as Psi4, sorted by its folder and x_hf entry', async () => {
+		// psi4_water_cross_g0p1100_e3p0000.out: Psi4 1.3.2, screened neutral, x_hf alpha 0.2, beta 0.133333333333, omega 0.11.
+		const r = await ingestOutputs({ name: 'screened/eps3p000/neutral.out', bytes: psi4Out });
+		expect(r.problems).toEqual([]);
+		expect(r.screened).toHaveLength(1);
+		expect(r.screened[0]).toMatchObject({ epsilon: 3, gammaBohrInv: 0.11, alpha: 0.2, beta: 0.133333333333, totalEnergyHartree: -76.3252522788935 });
+		// "5A     -0.297655" (HOMO) and "6A      0.083940" (LUMO) in the fixture's orbital table.
+		expect(r.screened[0].homoHartree).toBe(-0.297655);
+		expect(r.screened[0].lumoHartree).toBe(0.08394);
+	});
+
+	it('a Psi4 output in an NWChem bundle: engine mismatch, not read', async () => {
+		const r = await ingestOutputs(await bundleWithOutputs({ 'screened/eps3p000/neutral.out': psi4Out }));
+		expect(r.problems.filter((p) => p.severity === 'error')).toEqual([
+			{ code: 'engine-mismatch', severity: 'error', file: 'kappaline_so2/screened/eps3p000/neutral.out', message: "is a Psi4 output, but the bundle's decks are for NWChem" }
+		]);
+		expect(r.screened).toEqual([]);
 	});
 
 	it('a truncated output: the missing states are reported', async () => {
@@ -224,7 +234,7 @@ describe('per-file problems', () => {
 
 	it('binary junk named .out', async () => {
 		const r = await ingestOutputs({ name: 'x.out', bytes: new Uint8Array([0xff, 0xfe, 0x00, 0x80]) });
-		expect(r.problems).toEqual([{ code: 'not-text', severity: 'error', file: 'x.out', message: 'is not UTF-8 text; NWChem outputs are plain text' }]);
+		expect(r.problems).toEqual([{ code: 'not-text', severity: 'error', file: 'x.out', message: 'is not UTF-8 text; NWChem and Psi4 outputs are plain text' }]);
 	});
 });
 

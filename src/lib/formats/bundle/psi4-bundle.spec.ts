@@ -1,12 +1,17 @@
 import JSZip from 'jszip';
 import { describe, expect, it } from 'vitest';
-import { DeckInputError, writePsi4ScreenedJob, writePsi4TuningJob } from '../decks';
+import psi4CrossOut from '../decks/fixtures/psi4_water_cross_g0p1100_e3p0000.out?raw';
+import psi4NotConvergedOut from '../decks/fixtures/psi4_water_not_converged.out?raw';
+import psi4TuningOut from '../decks/fixtures/psi4_water_tuning_g0p1100.out?raw';
+import { DeckInputError, readPsi4Output, writePsi4ScreenedJob, writePsi4TuningJob } from '../decks';
 import { type BundleInput, buildBundle, planBundle } from './build';
 import { BundleInputError } from './errors';
+import { ingestOutputs } from './ingest';
 import { readManifest } from './manifest';
+import { zipBundle } from './build';
 import { pbsScript, runLocalScript, slurmScript } from './scripts';
 import { sha256Hex } from './sha256';
-import { BUNDLE_TOP_FILES, SO2_ATOMS, so2BundleInput } from './so2.testdata';
+import { BUNDLE_TOP_FILES, SO2_ATOMS, scanPointOf, so2BundleInput } from './so2.testdata';
 
 // Psi4 bundles: the same layout as NWChem's with `.in` inputs written by writePsi4TuningJob /
 // writePsi4ScreenedJob. Psi4 command line: `psi4 -n THREADS input -o output`, `-o stdout` writes the
@@ -172,5 +177,66 @@ describe('NWChem bundles are unchanged by the engine choice', () => {
 		// Stored bundles are rebuilt byte for byte on download; this digest was computed from the
 		// same request with the code before Psi4 bundles existed (commit d4ff620).
 		expect(await sha256Hex(await buildBundle(so2BundleInput()))).toBe('af268c7d70c9e56b1c3a7bc7235fa532e27290beb353bc7ee4634f821b799952');
+	});
+});
+
+describe('Psi4 bundle round trip: build -> outputs beside the inputs -> ingest', () => {
+	// Real Psi4 1.3.2 outputs of water at gamma 0.11 bohr^-1 (decks/fixtures/README.md): the tuning
+	// states and the screened neutral at epsilon 3. The inputs were the writer's with the HJS omega
+	// left at libxc's default 0.11 (the one edit 1.3.2 needs), so x_hf matches the bundle exactly.
+	const WATER = [
+		{ element: 'O', x: 0, y: 0, z: 0.1173 },
+		{ element: 'H', x: 0.7572, y: 0, z: -0.4692 },
+		{ element: 'H', x: -0.7572, y: 0, z: -0.4692 }
+	];
+	const water = (): BundleInput => ({
+		engine: 'psi4',
+		molecule: { name: 'water', atoms: WATER, charge: 0, multiplicity: 1 },
+		jobName: 'water',
+		alpha: 0.2,
+		tuning: { gammasBohrInv: [0.11], layout: 'combined' },
+		screened: { gammaBohrInv: 0.11, epsilons: [3] },
+		settings: { basis: '6-31G*', scfType: 'pk', energyConvergence: 1e-9, densityConvergence: 1e-8, memoryMb: 500 },
+		appVersion: '0.1.0',
+		createdAt: '2026-12-02T00:00:00.000Z'
+	});
+	async function withOutputs(outputs: Record<string, string>): Promise<Uint8Array> {
+		const zip = await JSZip.loadAsync(await zipBundle(await planBundle(water())));
+		for (const [path, text] of Object.entries(outputs)) zip.file(`kappaline_water/${path}`, text, { createFolders: false });
+		return zip.generateAsync({ type: 'uint8array', compression: 'DEFLATE' });
+	}
+
+	it('fills the scan point and the screened rerun from the Psi4 outputs, with no problems', async () => {
+		const r = await ingestOutputs(
+			await withOutputs({ 'tuning/g0p1100/neutral-cation-anion.out': psi4TuningOut, 'screened/eps3p000/neutral.out': psi4CrossOut })
+		);
+		expect(r.problems).toEqual([]);
+		expect(r.manifest?.engine).toBe('psi4');
+		expect(r.scanPoints).toEqual([scanPointOf(0.11, readPsi4Output(psi4TuningOut).tasks)]);
+		// Transcribed: "@RKS Final Energy: -76.32766459142536", "@UKS Final Energy: -75.87542259883396".
+		expect(r.scanPoints[0].eNeutralHartree).toBe(-76.32766459142536);
+		expect(r.scanPoints[0].eCationHartree).toBe(-75.87542259883396);
+		expect(r.screened.map((x) => [x.epsilon, x.totalEnergyHartree, x.homoHartree])).toEqual([[3, -76.3252522788935, -0.297655]]);
+	});
+
+	it('an SCF that stopped is reported as not converged with Psi4\'s message; a missing output is listed', async () => {
+		const r = await ingestOutputs(await withOutputs({ 'screened/eps3p000/neutral.out': psi4NotConvergedOut }));
+		expect(r.problems.filter((p) => p.code === 'parameter-mismatch')).toEqual([]);
+		expect(r.problems.find((p) => p.code === 'not-converged')).toMatchObject({
+			file: 'kappaline_water/screened/eps3p000/neutral.out',
+			state: 'neutral',
+			line: 301,
+			message: 'the neutral task (line 146) did not converge: Could not converge SCF iterations in 3 iterations.'
+		});
+		expect(r.problems.find((p) => p.code === 'missing-output')).toMatchObject({ file: 'tuning/g0p1100/neutral-cation-anion.out' });
+		expect(r.screened).toEqual([]);
+	});
+
+	it('a Psi4 output of another gamma is refused by its echoed x_hf entry', async () => {
+		const r = await ingestOutputs(await withOutputs({ 'screened/eps3p000/neutral.out': psi4CrossOut.replace('"omega": 0.11}', '"omega": 0.3}') }));
+		expect(r.problems.find((p) => p.severity === 'error')).toMatchObject({
+			code: 'parameter-mismatch',
+			message: expect.stringContaining('the run used x_hf alpha 0.2, beta 0.133333333333, omega 0.3, but screened/eps3p000/neutral.in stands for gamma 0.11, alpha 0.2, beta 0.1333')
+		});
 	});
 });

@@ -32,3 +32,19 @@ export function so2BundleInput(over: Partial<BundleInput> = {}): BundleInput {
 
 /** The files at the top of every bundle, in zip order. */
 export const BUNDLE_TOP_FILES = ['README.txt', 'manifest.json', 'run-local.sh', 'submit-slurm.sh', 'submit-pbs.sh'];
+
+/** A scan point as the ingestion should give it: the neutral, cation and anion tasks of one gamma. */
+export function scanPointOf(
+	gammaBohrInv: number,
+	[n, c, a]: readonly { totalEnergyHartree: number | null; homoHartree: number | null; lumoHartree: number | null }[]
+) {
+	return {
+		gammaBohrInv,
+		eNeutralHartree: n.totalEnergyHartree,
+		eCationHartree: c.totalEnergyHartree,
+		eAnionHartree: a.totalEnergyHartree,
+		homoNeutralHartree: n.homoHartree,
+		lumoNeutralHartree: n.lumoHartree,
+		homoAnionHartree: a.homoHartree
+	};
+}

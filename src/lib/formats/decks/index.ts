@@ -85,4 +85,16 @@ export {
 	writePsi4TuningStateDecks
 } from './psi4';
 export { type DeckFileNames, type ScanLayout, checkScanGammas } from './scan';
+export {
+	type Psi4EchoedRangeSeparation,
+	type Psi4Error,
+	type Psi4Frontier,
+	type Psi4Orbital,
+	type Psi4Output,
+	type Psi4PrintedExchange,
+	type Psi4SummaryLine,
+	type Psi4TaskResult,
+	readPsi4Output
+} from './psi4-output';
+export { type EchoedParameters, type EngineOutput, type EngineTaskResult, detectEngine, echoedParameters, readEngineOutput } from './engine-output';
 export { DECK_MANIFEST_SCHEMA, type DeckManifest, type DeckManifestEntry, deckManifest } from './manifest';
