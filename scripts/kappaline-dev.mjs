@@ -3,8 +3,9 @@
 // Uses only Node's built-ins, so it runs before node_modules exists.
 //
 //   start: deps -> PostgreSQL (project-local cluster) -> migrate -> seed demo -> fake SMTP -> build -> serve
-//   test:  deps -> PostgreSQL (separate test cluster) -> Chromium -> svelte-check -> lint -> build
-//          -> server on a fresh database -> Vitest (unit + integration) -> end-to-end in Chromium
+//   test:  deps -> PostgreSQL (separate test cluster) -> Chromium, NWChem -> svelte-check -> lint -> build
+//          -> server on a fresh database -> Vitest (unit + integration) -> engine runs (NWChem)
+//          -> end-to-end in Chromium
 import { spawn, spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -73,6 +74,29 @@ function ensurePostgresBinaries() {
 function ensureChromium() {
 	if (existsSync('/usr/bin/chromium')) return;
 	aptInstall(['chromium']);
+}
+
+/** Is a command on the PATH? */
+function onPath(name) {
+	return (process.env.PATH ?? '').split(':').some((d) => d && existsSync(join(d, name)));
+}
+
+/**
+ * NWChem and mpirun for the engine runs (Debian's `nwchem` package pulls in Open MPI). Returns true
+ * when they are there. Missing and not root: under CI=true a hard failure, otherwise a loud warning
+ * and the engine step is skipped.
+ */
+function ensureNwchem() {
+	if (onPath('nwchem') && onPath('mpirun')) return true;
+	if (isRoot) {
+		aptInstall(['nwchem']);
+		if (onPath('nwchem') && onPath('mpirun')) return true;
+		throw new Error('nwchem or mpirun still not on the PATH after installing Debian\'s nwchem package');
+	}
+	const msg = 'NWChem (nwchem and mpirun) is not installed and this is not root, so it cannot be installed here: apt-get install nwchem';
+	if (process.env.CI === 'true') throw new Error(`${msg} (CI=true: the engine runs are required)`);
+	console.warn(`\n[kappaline] ${'!'.repeat(70)}\n[kappaline] WARNING: ${msg}.\n[kappaline] The step "engine runs (NWChem)" is SKIPPED: the decks are not checked against the engine.\n[kappaline] ${'!'.repeat(70)}\n`);
+	return false;
 }
 
 // ---------------------------------------------------------------- PostgreSQL cluster
@@ -283,6 +307,7 @@ async function test() {
 	};
 	ensureDeps();
 	ensureChromium();
+	const haveNwchem = ensureNwchem();
 	cluster = await startCluster('pg-test');
 	const appDbUrl = ensureDatabase(cluster, 'kappaline_e2e', { fresh: true });
 	const intDbUrl = ensureDatabase(cluster, 'kappaline_int', { fresh: true });
@@ -299,6 +324,9 @@ async function test() {
 
 	const testEnv = { ...env, ...appEnv, DATABASE_URL: intDbUrl, APP_DATABASE_URL: appDbUrl, APP_URL: origin };
 	failed += step('vitest (unit + integration)', () => run(bin('vitest'), ['run'], { allowFail: true, env: testEnv })) ? 1 : 0;
+	// Real NWChem jobs on decks and bundles written by the app (tests/engine; serial, -np 1).
+	if (haveNwchem) failed += step('engine runs (NWChem)', () => run(bin('vitest'), ['run', '--config', 'tests/engine/vitest.config.ts'], { allowFail: true, env })) ? 1 : 0;
+	else steps.push({ name: 'engine runs (NWChem): SKIPPED, NWChem not installed', status: 0, seconds: 0 });
 	failed += step('end-to-end (Chromium)', () => run(bin('tsx'), ['tests/e2e/run.ts'], { allowFail: true, env: testEnv })) ? 1 : 0;
 	return finish(failed ? 1 : 0);
 

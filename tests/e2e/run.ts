@@ -154,6 +154,14 @@ step('solid-state levels: screened parameters, Born estimate, sweep chart, measu
 	const zip = page.waitForEvent('download');
 	await page.getByTestId('bundle-form').getByRole('button', { name: /Download rerun bundle/ }).click();
 	assert((await zip).suggestedFilename().endsWith('.zip'), 'rerun bundle not downloaded');
+	// The same rerun as Psi4 inputs: the preview lists .in files whose header states the Psi4 release needed.
+	await page.getByTestId('bundle-engine').selectOption('psi4');
+	await page.getByRole('button', { name: 'Preview files' }).click();
+	await page.getByTestId('bundle-preview').getByRole('button', { name: /neutral\.in$/ }).first().click();
+	await page.getByTestId('bundle-preview').getByText(/Needs Psi4 1\.4 or newer/).first().waitFor();
+	const psi4Zip = page.waitForEvent('download');
+	await page.getByTestId('bundle-form').getByRole('button', { name: /Download rerun bundle/ }).click();
+	assert(/-psi4-.*\.zip$/.test((await psi4Zip).suggestedFilename()), 'Psi4 rerun bundle not downloaded');
 	await page.reload();
 	await page.getByRole('link', { name: /kappaline-.*\.zip/ }).first().waitFor();
 	await page.getByTestId('typed-ip').fill('9.2');

@@ -1,11 +1,11 @@
 import { spawnSync } from 'node:child_process';
-import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readManifest } from '$lib/formats/bundle';
 
-// The real command line (`node bin/kappaline.mjs`) on committed NWChem 7.0.2 outputs
+// The real command line (`node bin/kappaline.mjs`) on committed NWChem 7.0.2 and Psi4 1.3.2 outputs
 // (src/lib/formats/decks/fixtures/README.md).
 const cli = (...args: string[]) => spawnSync(process.execPath, ['bin/kappaline.mjs', ...args], { encoding: 'utf8' });
 const FIX = 'src/lib/formats/decks/fixtures';
@@ -38,6 +38,26 @@ describe('kappaline deck / parse / collect', () => {
 		expect(recs.map((x: { charge: number }) => x.charge)).toEqual([0, 1, -1]);
 		for (const x of recs) expect(Object.keys(x)).toEqual(expect.arrayContaining(['engine', 'converged', 'charge', 'multiplicity', 'totalEnergyHa', 'homoHa', 'lumoHa', 'alphaOrbitals', 'betaOrbitals']));
 		expect(recs[1].betaOrbitals.length).toBeGreaterThan(0);
+	});
+
+	it('parse reads a Psi4 output too (engine psi4), and refuses a truncated one with its line', () => {
+		// Psi4 1.3.2 run of the water tuning states at gamma 0.11 (fixtures/README.md).
+		const r = cli('parse', `${FIX}/psi4_water_tuning_g0p1100.out`, '--json');
+		expect(r.status, r.stderr).toBe(0);
+		const recs = JSON.parse(r.stdout);
+		expect(recs.map((x: { engine: string; charge: number; totalEnergyHa: number }) => [x.engine, x.charge, x.totalEnergyHa])).toEqual([
+			['psi4', 0, -76.32766459142536],
+			['psi4', 1, -75.87542259883396],
+			['psi4', -1, -76.15748106811162]
+		]);
+		expect(recs[1].betaOrbitals.filter((o: { occupation: number }) => o.occupation === 1)).toHaveLength(4);
+		const dir = mkdtempSync(join(tmpdir(), 'kl-parse-'));
+		const cut = join(dir, 'cut.out');
+		writeFileSync(cut, readFileSync(`${FIX}/psi4_water_tuning_g0p1100.out`, 'utf8').split('\n').slice(0, 499).join('\n'));
+		const bad = cli('parse', cut);
+		expect(bad.status).not.toBe(0);
+		expect(bad.stderr).toContain('line 499');
+		expect(bad.stderr).toContain('truncated');
 	});
 
 	it('collect turns a finished scan folder into the canonical scan CSV', () => {

@@ -1,13 +1,13 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { EngineOutputError, readNwchemOutput } from '$lib/formats/decks';
+import { EngineOutputError, readEngineOutput } from '$lib/formats/decks';
 import { CliInputError, CliUsageError, type CliCommand } from '../types';
 
 /** One record per task of each output: what the web read-back stores, as JSON. */
 export const command: CliCommand = {
 	name: 'parse',
-	summary: 'read NWChem outputs: energies, frontier and spin-resolved orbital energies, convergence',
+	summary: 'read NWChem or Psi4 outputs: energies, frontier and spin-resolved orbital energies, convergence',
 	usage: 'kappaline parse OUTPUT_FILE... [--json]',
 	async run(args, io) {
 		let parsed;
@@ -21,7 +21,7 @@ export const command: CliCommand = {
 		for (const file of parsed.positionals) {
 			let out;
 			try {
-				out = readNwchemOutput(readFileSync(resolve(io.cwd, file), 'utf8'));
+				out = readEngineOutput(readFileSync(resolve(io.cwd, file), 'utf8'));
 			} catch (e) {
 				if (e instanceof EngineOutputError) throw new CliInputError(`${file}${e.line ? ` line ${e.line}` : ''}: ${e.message}`);
 				throw new CliInputError(`${file}: ${(e as Error).message}`);
@@ -29,7 +29,7 @@ export const command: CliCommand = {
 			for (const t of out.tasks)
 				records.push({
 					file,
-					engine: 'nwchem',
+					engine: out.engine,
 					task: t.index,
 					title: t.title,
 					converged: t.converged,

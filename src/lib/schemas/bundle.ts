@@ -2,10 +2,17 @@ import { z } from 'zod';
 
 const gamma = z.coerce.number({ error: 'gamma must be a number (bohr^-1)' }).gt(0, 'gamma must be > 0 bohr^-1').lt(10, 'gamma must be < 10 bohr^-1');
 
-/** What a user asks for when downloading a rerun bundle (NWChem decks, scripts, manifest). */
+/** Engines a bundle can be made for; Psi4 inputs need Psi4 >= 1.4 to set omega (1.3.2 cannot). */
+export const BUNDLE_ENGINE_CHOICES = ['nwchem', 'psi4'] as const;
+
+/** What a user asks for when downloading a rerun bundle (NWChem decks or Psi4 inputs, scripts, manifest). */
 export const bundleRequest = z
 	.object({
 		moleculeId: z.uuid('moleculeId must be a UUID'),
+		engine: z
+			.enum(BUNDLE_ENGINE_CHOICES, { error: 'engine must be nwchem or psi4' })
+			.optional()
+			.meta({ description: 'nwchem (default) or psi4; Psi4 inputs need Psi4 >= 1.4 (1.3.2 stops with "set_omega not implemented")' }),
 		polymorphId: z.uuid().optional(),
 		studyId: z.uuid().optional(),
 		alpha: z.coerce.number({ error: 'alpha must be a number' }).min(0, 'alpha must be between 0 and 1').max(1, 'alpha must be between 0 and 1'),
@@ -50,6 +57,7 @@ export function bundleRequestFromForm(f: Record<string, string>): BundleRequest 
 	const eps = f.epsilons ? parseNumberList(f.epsilons) : [];
 	return bundleRequest.parse({
 		moleculeId: f.moleculeId,
+		engine: f.engine || undefined,
 		polymorphId: f.polymorphId || undefined,
 		studyId: f.studyId || undefined,
 		alpha: f.alpha,

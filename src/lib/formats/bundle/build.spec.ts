@@ -149,7 +149,7 @@ describe('buildBundle: the zip', () => {
 describe('buildBundle: refusals', () => {
 	it.each([
 		['no calculation', { tuning: null, screened: null }, 'tuning: a bundle needs a tuning scan, screened reruns, or both'],
-		['unknown engine', { engine: 'psi4' as unknown as 'nwchem' }, 'engine: only NWChem bundles can be built, got "psi4"'],
+		['unknown engine', { engine: 'cp2k' as unknown as 'nwchem' }, 'engine: engine must be nwchem or psi4, got "cp2k"'],
 		['bad time stamp', { createdAt: 'yesterday' }, 'createdAt: createdAt must be an ISO 8601 time, got "yesterday"'],
 		['epsilons sharing a folder', { screened: { gammaBohrInv: 0.3, epsilons: [3, 3.0001] } }, 'screened.epsilons[1]: epsilon 3.0001 shares the folder screened/eps3p000 with screened.epsilons[0]'],
 		['bad root folder', { rootFolder: '../x' }, 'rootFolder: rootFolder must be one folder name'],

@@ -5,15 +5,25 @@
  *   <root>/tuning/g0p2500/{neutral,cation,anion}.nw  or  neutral-cation-anion.nw
  *   <root>/screened/eps3p000/neutral.nw
  *
+ * NWChem decks end in `.nw`, Psi4 inputs in `.in` (same folders and base names); each output is
+ * expected beside its deck as `.out`.
+ *
  * {@link planBundle} returns the files (for a preview before download) and {@link buildBundle} zips
  * them. Both are pure: the caller passes the creation time, so the same request gives the same bytes.
  */
 import JSZip from 'jszip';
 import { formulaHill } from '$lib/science/elements';
 import {
+	DEFAULT_NWCHEM_SETTINGS,
+	DEFAULT_PSI4_SETTINGS,
 	type DeckAtom,
+	type DeckMolecule,
+	type DeckProvenance,
 	type NwchemDeck,
 	type NwchemSettings,
+	type Psi4Deck,
+	type Psi4Settings,
+	type ScanLayout,
 	checkJobName,
 	checkMolecule,
 	formatReal,
@@ -21,7 +31,9 @@ import {
 	nwchemBasisType,
 	tuningStates,
 	writeNwchemScreenedJob,
-	writeNwchemTuningScan
+	writeNwchemTuningScan,
+	writePsi4ScreenedJob,
+	writePsi4TuningScan
 } from '../decks';
 import { BundleInputError } from './errors';
 import { outputPathOf, screenedFolder, tuningFolder } from './layout';
@@ -29,6 +41,7 @@ import {
 	BUNDLE_FORMAT,
 	BUNDLE_SCHEMA_VERSION,
 	type BundleDeckInfo,
+	type BundleEngine,
 	type BundleFileEntry,
 	type BundleFileRole,
 	type BundleManifest
@@ -39,8 +52,8 @@ import { sha256Hex } from './sha256';
 
 /** What a bundle is made from. */
 export interface BundleInput {
-	/** Only NWChem bundles for now. */
-	engine?: 'nwchem';
+	/** Engine of the decks; default nwchem. Psi4 inputs need Psi4 >= 1.4 (see decks/psi4.ts). */
+	engine?: BundleEngine;
 	molecule: {
 		/** Name as the user knows it (deck headers, README, manifest). */
 		name: string;
@@ -59,7 +72,8 @@ export interface BundleInput {
 	tuning?: { gammasBohrInv: readonly number[]; layout?: 'per-state' | 'combined' } | null;
 	/** Screened reruns of the neutral at the tuned gamma: one folder per epsilon. */
 	screened?: { gammaBohrInv: number; epsilons: readonly number[]; epsilonSource?: string | null } | null;
-	settings?: Partial<NwchemSettings>;
+	/** Engine settings: NWChem's (grid, basisType, symmetry ...) or Psi4's (scfType, radialPoints ...); basis, convergence, iterations and memory are common. */
+	settings?: Partial<NwchemSettings> | Partial<Psi4Settings>;
 	scripts?: Partial<ScriptSettings>;
 	appVersion: string;
 	/** ISO 8601 creation time (written into the manifest, the decks and the zip entries). */
@@ -92,7 +106,9 @@ export interface BundlePlan {
 
 const MAX_EPSILONS = 50;
 
-function deckInfo(deck: NwchemDeck, path: string): BundleDeckInfo {
+type AnyDeck = NwchemDeck | Psi4Deck;
+
+function deckInfo(deck: AnyDeck, path: string): BundleDeckInfo {
 	return {
 		kind: deck.kind,
 		jobName: deck.jobName,
@@ -105,18 +121,84 @@ function deckInfo(deck: NwchemDeck, path: string): BundleDeckInfo {
 	};
 }
 
-function deckPurpose(deck: NwchemDeck): string {
+function deckPurpose(deck: AnyDeck): string {
 	const p = deck.parameters;
 	const states = deck.states.map((s) => `${s.label} (charge ${s.charge}, multiplicity ${s.multiplicity})`).join(', ');
+	const what = deck.engine === 'psi4' ? 'Psi4 input (Psi4 >= 1.4)' : 'NWChem deck';
 	return deck.kind === 'tuning'
-		? `NWChem deck, gas-phase tuning at gamma = ${formatReal(p.gammaBohrInv, 6)} bohr^-1, alpha = ${formatReal(p.alpha)}: ${states}`
-		: `NWChem deck, screened rerun at epsilon = ${formatReal(p.epsilon, 6)} (beta = ${formatReal(p.beta, 9)}), gamma = ${formatReal(p.gammaBohrInv, 6)} bohr^-1: ${states}`;
+		? `${what}, gas-phase tuning at gamma = ${formatReal(p.gammaBohrInv, 6)} bohr^-1, alpha = ${formatReal(p.alpha)}: ${states}`
+		: `${what}, screened rerun at epsilon = ${formatReal(p.epsilon, 6)} (beta = ${formatReal(p.beta, 9)}), gamma = ${formatReal(p.gammaBohrInv, 6)} bohr^-1: ${states}`;
+}
+
+/** A tuning scan or screened job in the bundle's terms (settings already picked for the engine). */
+interface ScanJob {
+	jobName: string;
+	molecule: DeckMolecule;
+	alpha: number;
+	provenance: DeckProvenance;
+	gammasBohrInv: readonly number[];
+	cationMultiplicity?: number;
+	anionMultiplicity?: number;
+}
+type ScreenedJob = Omit<ScanJob, 'gammasBohrInv' | 'cationMultiplicity' | 'anionMultiplicity'> & { gammaBohrInv: number; epsilon: number };
+
+/**
+ * The engine's writers, with the settings checked against the engine: a setting only the other
+ * engine knows (NWChem's grid, Psi4's scfType ...) is refused by name rather than silently dropped.
+ */
+function engineWriters(engine: BundleEngine, settings: BundleInput['settings']) {
+	const own = Object.keys(engine === 'psi4' ? DEFAULT_PSI4_SETTINGS : DEFAULT_NWCHEM_SETTINGS);
+	const other = engine === 'psi4' ? 'NWChem' : 'Psi4';
+	for (const key of Object.keys(settings ?? {})) {
+		if (!own.includes(key)) {
+			throw new BundleInputError(`settings.${key}`, `${key} is not a ${engine === 'psi4' ? 'Psi4' : 'NWChem'} setting${key in (engine === 'psi4' ? DEFAULT_NWCHEM_SETTINGS : DEFAULT_PSI4_SETTINGS) ? ` (it is ${other}'s)` : ''}; ${engine === 'psi4' ? 'Psi4' : 'NWChem'} settings are ${own.join(', ')}`);
+		}
+	}
+	if (engine === 'psi4') {
+		const s = settings as Partial<Psi4Settings> | undefined;
+		return {
+			scan: (job: ScanJob, layout: ScanLayout): AnyDeck[] => writePsi4TuningScan({ ...job, settings: s }, { layout, fileNames: 'state' }),
+			screened: (job: ScreenedJob): AnyDeck => writePsi4ScreenedJob({ ...job, settings: s }, { fileNames: 'state' })
+		};
+	}
+	const s = settings as Partial<NwchemSettings> | undefined;
+	return {
+		scan: (job: ScanJob, layout: ScanLayout): AnyDeck[] => writeNwchemTuningScan({ ...job, settings: s }, { layout, fileNames: 'state' }),
+		screened: (job: ScreenedJob): AnyDeck => writeNwchemScreenedJob({ ...job, settings: s }, { fileNames: 'state' })
+	};
+}
+
+/** The settings written into every deck, as the manifest records them. */
+function manifestSettings(deck: AnyDeck): BundleManifest['settings'] {
+	if (deck.engine === 'psi4') {
+		const s = deck.settings;
+		return {
+			basis: s.basis,
+			scfType: s.scfType,
+			radialPoints: s.radialPoints,
+			sphericalPoints: s.sphericalPoints,
+			energyConvergenceHartree: s.energyConvergence,
+			densityConvergence: s.densityConvergence,
+			maxIterations: s.maxIterations,
+			memoryMbPerJob: s.memoryMb
+		};
+	}
+	const s = deck.settings;
+	return {
+		basis: s.basis,
+		basisType: nwchemBasisType(s),
+		grid: s.grid,
+		energyConvergenceHartree: s.energyConvergence,
+		maxIterations: s.maxIterations,
+		memoryMbPerProcess: s.memoryMb,
+		symmetry: s.symmetry
+	};
 }
 
 function checkInput(input: BundleInput): void {
 	if (!input || typeof input !== 'object') throw new BundleInputError('input', 'a bundle request is required');
-	if (input.engine !== undefined && input.engine !== 'nwchem') {
-		throw new BundleInputError('engine', `only NWChem bundles can be built, got ${JSON.stringify(input.engine)}`);
+	if (input.engine !== undefined && input.engine !== 'nwchem' && input.engine !== 'psi4') {
+		throw new BundleInputError('engine', `engine must be nwchem or psi4, got ${JSON.stringify(input.engine)}`);
 	}
 	if (!input.molecule || typeof input.molecule.name !== 'string' || input.molecule.name.trim() === '') {
 		throw new BundleInputError('molecule.name', 'the molecule needs a name');
@@ -166,13 +248,15 @@ export async function planBundle(input: BundleInput): Promise<BundlePlan> {
 		appVersion: input.appVersion,
 		generatedAt: input.createdAt
 	};
-	const common = { jobName, molecule, alpha: input.alpha, settings: input.settings };
+	const engine: BundleEngine = input.engine ?? 'nwchem';
+	const common = { jobName, molecule, alpha: input.alpha };
+	const writers = engineWriters(engine, input.settings);
 
-	const planned: { deck: NwchemDeck; path: string }[] = [];
+	const planned: { deck: AnyDeck; path: string }[] = [];
 	let tuningFolders: string[] = [];
 	const layout = input.tuning?.layout ?? 'per-state';
 	if (input.tuning) {
-		const decks = writeNwchemTuningScan(
+		const decks = writers.scan(
 			{
 				...common,
 				provenance,
@@ -180,7 +264,7 @@ export async function planBundle(input: BundleInput): Promise<BundlePlan> {
 				cationMultiplicity: input.cationMultiplicity,
 				anionMultiplicity: input.anionMultiplicity
 			},
-			{ layout, fileNames: 'state' }
+			layout
 		);
 		for (const deck of decks) planned.push({ deck, path: `${tuningFolder(deck.parameters.gammaBohrInv)}/${deck.fileName}` });
 		tuningFolders = [...new Set(planned.map((p) => p.path.slice(0, p.path.lastIndexOf('/'))))];
@@ -195,21 +279,18 @@ export async function planBundle(input: BundleInput): Promise<BundlePlan> {
 				throw new BundleInputError(`screened.epsilons[${i}]`, `epsilon ${epsilon} shares the folder ${folder} with screened.epsilons[${prev}]; epsilons must differ in the first 3 decimals`);
 			}
 			seen.set(folder, i);
-			const deck = writeNwchemScreenedJob(
-				{
-					...common,
-					provenance: { ...provenance, epsilonSource: input.screened?.epsilonSource ?? null },
-					gammaBohrInv: input.screened?.gammaBohrInv as number,
-					epsilon
-				},
-				{ fileNames: 'state' }
-			);
+			const deck = writers.screened({
+				...common,
+				provenance: { ...provenance, epsilonSource: input.screened?.epsilonSource ?? null },
+				gammaBohrInv: input.screened?.gammaBohrInv as number,
+				epsilon
+			});
 			planned.push({ deck, path: `${folder}/${deck.fileName}` });
 			runs.push({ epsilon: deck.parameters.epsilon, beta: deck.parameters.beta, folder });
 		});
 	}
 
-	const settings: NwchemSettings = planned[0].deck.settings;
+	const first = planned[0].deck;
 	const title = `${input.molecule.name} (${formula}): ${[
 		input.tuning ? `tuning scan, ${input.tuning.gammasBohrInv.length} gamma values` : '',
 		input.screened ? `screened reruns, ${runs.length} epsilon value${runs.length === 1 ? '' : 's'}` : ''
@@ -217,7 +298,7 @@ export async function planBundle(input: BundleInput): Promise<BundlePlan> {
 		.filter(Boolean)
 		.join('; ')}; ${planned.length} decks`;
 	const deckPaths = planned.map((p) => p.path);
-	const scriptCtx = { decks: deckPaths, title, settings: { ...scriptSettings, jobName: input.scripts?.jobName ?? `kl_${jobName}`.slice(0, 64) } };
+	const scriptCtx = { engine, decks: deckPaths, title, settings: { ...scriptSettings, jobName: input.scripts?.jobName ?? `kl_${jobName}`.slice(0, 64) } };
 	checkScriptSettings(scriptCtx.settings);
 
 	const drafts = [
@@ -226,14 +307,15 @@ export async function planBundle(input: BundleInput): Promise<BundlePlan> {
 			'readme',
 			'What each folder holds, how to run the decks and bring the outputs back, cautions',
 			bundleReadme({
+				engine,
 				moleculeName: input.molecule.name,
 				formula,
 				charge: checked.charge,
 				multiplicity: checked.multiplicity,
 				appVersion: input.appVersion,
 				createdAt: input.createdAt,
-				basis: settings.basis,
-				alpha: planned[0].deck.parameters.alpha,
+				basis: first.settings.basis,
+				alpha: first.parameters.alpha,
 				tuning: input.tuning ? { gammasBohrInv: input.tuning.gammasBohrInv, layout, folders: tuningFolders } : null,
 				screened: input.screened ? { gammaBohrInv: input.screened.gammaBohrInv, runs } : null,
 				deckCount: planned.length,
@@ -264,17 +346,9 @@ export async function planBundle(input: BundleInput): Promise<BundlePlan> {
 		format: BUNDLE_FORMAT,
 		app: { name: 'Kappaline', version: input.appVersion },
 		createdAt: input.createdAt,
-		engine: 'nwchem',
-		basis: settings.basis,
-		settings: {
-			basis: settings.basis,
-			basisType: nwchemBasisType(settings),
-			grid: settings.grid,
-			energyConvergenceHartree: settings.energyConvergence,
-			maxIterations: settings.maxIterations,
-			memoryMbPerProcess: settings.memoryMb,
-			symmetry: settings.symmetry
-		},
+		engine,
+		basis: first.settings.basis,
+		settings: manifestSettings(first),
 		molecule: {
 			name: input.molecule.name,
 			formula,

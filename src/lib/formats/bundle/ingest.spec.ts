@@ -192,11 +192,30 @@ describe('per-file problems', () => {
 		expect(r.screened[0].epsilon).toBeCloseTo(3, 9);
 	});
 
-	it('an output of another engine: parse error', async () => {
-		const r = await ingestOutputs({ name: 'psi4.out', bytes: psi4Out });
+	it('an output of an unknown engine: parse error naming the engines read', async () => {
+		const r = await ingestOutputs({ name: 'other.out', bytes: 'SCF Done:  E(RB3LYP) =  -76.4\n Normal termination\n' });
 		expect(r.problems).toEqual([
-			{ code: 'parse-error', severity: 'error', file: 'psi4.out', message: 'not an NWChem output: no "Northwest Computational Chemistry Package (NWChem)" banner' }
+			{ code: 'parse-error', severity: 'error', file: 'other.out', message: "not an NWChem or Psi4 output: neither engine's banner was found (Kappaline reads NWChem 7.x and Psi4 outputs)" }
 		]);
+	});
+
+	it('a Psi4 output without a manifest: read as Psi4, sorted by its folder and x_hf entry', async () => {
+		// psi4_water_cross_g0p1100_e3p0000.out: Psi4 1.3.2, screened neutral, x_hf alpha 0.2, beta 0.133333333333, omega 0.11.
+		const r = await ingestOutputs({ name: 'screened/eps3p000/neutral.out', bytes: psi4Out });
+		expect(r.problems).toEqual([]);
+		expect(r.screened).toHaveLength(1);
+		expect(r.screened[0]).toMatchObject({ epsilon: 3, gammaBohrInv: 0.11, alpha: 0.2, beta: 0.133333333333, totalEnergyHartree: -76.3252522788935 });
+		// "5A     -0.297655" (HOMO) and "6A      0.083940" (LUMO) in the fixture's orbital table.
+		expect(r.screened[0].homoHartree).toBe(-0.297655);
+		expect(r.screened[0].lumoHartree).toBe(0.08394);
+	});
+
+	it('a Psi4 output in an NWChem bundle: engine mismatch, not read', async () => {
+		const r = await ingestOutputs(await bundleWithOutputs({ 'screened/eps3p000/neutral.out': psi4Out }));
+		expect(r.problems.filter((p) => p.severity === 'error')).toEqual([
+			{ code: 'engine-mismatch', severity: 'error', file: 'kappaline_so2/screened/eps3p000/neutral.out', message: "is a Psi4 output, but the bundle's decks are for NWChem" }
+		]);
+		expect(r.screened).toEqual([]);
 	});
 
 	it('a truncated output: the missing states are reported', async () => {
@@ -213,7 +232,7 @@ describe('per-file problems', () => {
 
 	it('binary junk named .out', async () => {
 		const r = await ingestOutputs({ name: 'x.out', bytes: new Uint8Array([0xff, 0xfe, 0x00, 0x80]) });
-		expect(r.problems).toEqual([{ code: 'not-text', severity: 'error', file: 'x.out', message: 'is not UTF-8 text; NWChem outputs are plain text' }]);
+		expect(r.problems).toEqual([{ code: 'not-text', severity: 'error', file: 'x.out', message: 'is not UTF-8 text; NWChem and Psi4 outputs are plain text' }]);
 	});
 });
 

@@ -2,7 +2,8 @@
  * Ingestion of engine outputs: a zip of a run bundle with the outputs beside their decks, the same
  * folder uploaded file by file (manifest.json included), several output files, or a single one. Each `*.out` is matched to its deck through the bundle manifest
  * (its path: same folder and base name as the deck; failing that, the start name NWChem prints as
- * `prefix`), read with {@link readNwchemOutput}, and turned into typed results:
+ * `prefix`), read with {@link readEngineOutput} (NWChem or Psi4, told apart by their banners), and
+ * turned into typed results:
  *
  * - tuning folders: scan points (gamma, E(N), E(N-1), E(N+1), eps_HOMO(N), eps_LUMO(N),
  *   eps_HOMO(N+1), all in hartree) in the shape of the tuning module's `ScanPoint`;
@@ -11,11 +12,12 @@
  *   unmatched or duplicated output, deck edited after download, outputs still missing.
  *
  * Without a manifest, the folder names (`tuning/g0p2500`, `screened/eps3p000`), the file names
- * (`neutral.out`, ...) and what the output echoes (the exact `cam` line, task titles) decide.
+ * (`neutral.out`, ...) and what the output echoes (NWChem's exact `cam` line or Psi4's `x_hf` entry,
+ * task titles or Psi4's molecule names) decide.
  * Nothing here stores anything: the caller shows the preview and stores on confirmation.
  */
 import type { ScanPoint } from '$lib/science/tuning/types';
-import { EngineOutputError, type NwchemOutput, type NwchemTaskResult, readNwchemOutput } from '../decks';
+import { type EngineOutput, type EngineTaskResult, EngineOutputError, echoedParameters, readEngineOutput } from '../decks';
 import { ArchiveError, ManifestError } from './errors';
 import { type ZipLimits, checkZipLimits, readZipEntries } from './inspect-zip';
 import { baseName, dirName, parseBundleFolder } from './layout';
@@ -46,6 +48,7 @@ export type IngestProblemCode =
 	| 'missing-task'
 	| 'state-mismatch'
 	| 'parameter-mismatch'
+	| 'engine-mismatch'
 	| 'unmatched-output'
 	| 'duplicate-output'
 	| 'missing-output'
@@ -122,7 +125,7 @@ interface TextFile {
 interface Gathered {
 	outputs: TextFile[];
 	manifest: BundleManifest | null;
-	/** Deck texts found in an archive, by path relative to the bundle folder. */
+	/** Deck texts (NWChem .nw, Psi4 .in) found in an archive, by path relative to the bundle folder. */
 	decks: Map<string, Uint8Array>;
 }
 
@@ -142,9 +145,14 @@ function isOutputName(name: string): boolean {
 	return /\.out$/i.test(name);
 }
 
+/** NWChem decks (.nw) and Psi4 inputs (.in). */
+function isDeckName(name: string): boolean {
+	return /\.(nw|in)$/i.test(name);
+}
+
 async function gatherZip(bytes: Uint8Array, limits: ZipLimits, known: BundleManifest | null, into: Gathered): Promise<void> {
 	// The bundle folder is where the shallowest manifest.json sits.
-	const { files } = await readZipEntries(bytes, (n) => isOutputName(n) || baseName(n) === 'manifest.json' || /\.nw$/i.test(n), limits);
+	const { files } = await readZipEntries(bytes, (n) => isOutputName(n) || baseName(n) === 'manifest.json' || isDeckName(n), limits);
 	const manifests = files.filter((f) => baseName(f.name) === 'manifest.json');
 	const depth = (n: string) => n.split('/').length;
 	const shallowest = Math.min(...manifests.map((m) => depth(m.name)));
@@ -164,7 +172,7 @@ async function gatherZip(bytes: Uint8Array, limits: ZipLimits, known: BundleMani
 	const rel = (n: string) => (prefix && n.startsWith(prefix) ? n.slice(prefix.length) : n);
 	for (const f of files) {
 		if (isOutputName(f.name)) into.outputs.push({ path: rel(f.name), name: f.name, text: decodeText(f.bytes) });
-		else if (/\.nw$/i.test(f.name)) into.decks.set(rel(f.name), f.bytes);
+		else if (isDeckName(f.name)) into.decks.set(rel(f.name), f.bytes);
 	}
 	if (manifest && !into.manifest) into.manifest = manifest;
 }
@@ -203,7 +211,7 @@ async function gather(upload: IngestUpload, options: IngestOptions, limits: ZipL
 			const text = decodeText(bytes);
 			if (text === null) throw new ManifestError('(document)', `${f.name} is not UTF-8 text`);
 			plainManifest ??= { path, manifest: readManifest(text) };
-		} else if (/\.nw$/i.test(path)) {
+		} else if (isDeckName(path)) {
 			plainDecks.push({ path, bytes });
 		} else {
 			plainNames.add(f.name);
@@ -239,10 +247,10 @@ interface Expected {
 const LABELS: readonly BundleStateLabel[] = ['neutral', 'cation', 'anion'];
 
 /** Infer what an output computed when there is no manifest. */
-function infer(file: TextFile, out: NwchemOutput): Expected | string {
+function infer(file: TextFile, out: EngineOutput): Expected | string {
 	const folder = dirName(file.path);
 	const byFolder = parseBundleFolder(folder);
-	const cam = out.echoedCam[0];
+	const cam = echoedParameters(out);
 	const stem = baseName(file.path).replace(/\.out$/i, '');
 	const titles = out.tasks.map((t) => t.title ?? '');
 	const screened = byFolder?.kind === 'screened' || titles.some((t) => /\bscreened\b/.test(t)) || (cam !== undefined && Math.abs(cam.alpha + cam.beta - 1) > 1e-9);
@@ -255,14 +263,14 @@ function infer(file: TextFile, out: NwchemOutput): Expected | string {
 	}
 	if (!labels) return 'cannot tell which states this output holds: no manifest, and neither its file name nor its task titles name them';
 	const gamma = cam?.gammaBohrInv ?? (byFolder?.kind === 'tuning' ? byFolder.gammaBohrInv : null);
-	if (gamma === null || gamma === undefined) return 'cannot tell gamma: no manifest, no echoed cam line and no tuning/g... folder';
+	if (gamma === null || gamma === undefined) return 'cannot tell gamma: no manifest, no echoed cam line (NWChem) or x_hf entry (Psi4) and no tuning/g... folder';
 	const alpha = cam?.alpha ?? Number.NaN;
 	const beta = cam?.beta ?? Number.NaN;
 	let epsilon = 1;
 	if (screened) {
 		if (byFolder?.kind === 'screened') epsilon = byFolder.epsilon;
 		else if (cam) epsilon = 1 / (cam.alpha + cam.beta);
-		else return 'cannot tell epsilon: no manifest, no echoed cam line and no screened/eps... folder';
+		else return 'cannot tell epsilon: no manifest, no echoed cam line (NWChem) or x_hf entry (Psi4) and no screened/eps... folder';
 	}
 	return {
 		deckPath: null,
@@ -278,7 +286,7 @@ function sameNumber(a: number, b: number): boolean {
 
 interface StateValue {
 	label: BundleStateLabel;
-	task: NwchemTaskResult;
+	task: EngineTaskResult;
 	file: string;
 }
 
@@ -328,12 +336,12 @@ export async function ingestOutputs(upload: IngestUpload, options: IngestOptions
 		const byPath = manifest ? byOutput.get(file.path) : undefined;
 		if (byPath) record.deck = byPath.path;
 		if (file.text === null) {
-			problems.push({ code: 'not-text', severity: 'error', file: file.name, message: 'is not UTF-8 text; NWChem outputs are plain text' });
+			problems.push({ code: 'not-text', severity: 'error', file: file.name, message: 'is not UTF-8 text; NWChem and Psi4 outputs are plain text' });
 			continue;
 		}
-		let out: NwchemOutput;
+		let out: EngineOutput;
 		try {
-			out = readNwchemOutput(file.text);
+			out = readEngineOutput(file.text);
 		} catch (e) {
 			if (e instanceof EngineOutputError) {
 				const p: IngestProblem = { code: 'parse-error', severity: 'error', file: file.name, message: e.message };
@@ -380,8 +388,20 @@ export async function ingestOutputs(upload: IngestUpload, options: IngestOptions
 		record.deck = expected.deckPath ?? expected.info.states.join('-');
 		record.kind = expected.info.kind;
 
-		// The exact cam line NWChem echoed must be the deck's (catches outputs of edited or other decks).
-		const cam = out.echoedCam[0];
+		// An output of the other engine than the bundle's decks (a stray file, or the wrong bundle).
+		if (manifest && out.engine !== manifest.engine) {
+			problems.push({
+				code: 'engine-mismatch',
+				severity: 'error',
+				file: file.name,
+				message: `is ${out.engine === 'psi4' ? 'a Psi4' : 'an NWChem'} output, but the bundle's decks are for ${manifest.engine === 'psi4' ? 'Psi4' : 'NWChem'}`
+			});
+			continue;
+		}
+
+		// The exact parameters the engine echoed (NWChem's cam line, Psi4's x_hf) must be the deck's
+		// (catches outputs of edited or other decks).
+		const cam = echoedParameters(out);
 		if (cam && Number.isFinite(expected.info.alpha)) {
 			const want = expected.info;
 			if (!sameNumber(cam.gammaBohrInv, want.gammaBohrInv) || !sameNumber(cam.alpha, want.alpha) || !sameNumber(cam.beta, want.beta)) {
@@ -390,7 +410,7 @@ export async function ingestOutputs(upload: IngestUpload, options: IngestOptions
 					severity: 'error',
 					file: file.name,
 					line: cam.line,
-					message: `the run used cam ${cam.gammaBohrInv} cam_alpha ${cam.alpha} cam_beta ${cam.beta}, but ${expected.deckPath ?? 'its folder'} stands for gamma ${want.gammaBohrInv}, alpha ${want.alpha}, beta ${want.beta}`
+					message: `the run used ${cam.text}, but ${expected.deckPath ?? 'its folder'} stands for gamma ${want.gammaBohrInv}, alpha ${want.alpha}, beta ${want.beta}`
 				});
 				continue;
 			}

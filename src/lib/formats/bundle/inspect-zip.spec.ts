@@ -52,6 +52,16 @@ describe('inspectZip: accepted archives', () => {
 		expect(files.map((f) => f.name)).toEqual(['a/neutral.out']);
 		expect(new TextDecoder().decode(files[0].bytes)).toBe(outputText);
 	});
+
+	it('an engine scratch file that compresses over the limit does not stop the extraction of the outputs', async () => {
+		// NWChem's runtime database (.db) of a real water run compressed 122:1 (6.2 KiB -> 755 KiB)
+		// in the engine test; users zip the whole run folder, scratch files included.
+		const bytes = await zipOf({ 'a/neutral.out': outputText, 'a/water.db': new Uint8Array(800 * 1024) });
+		const { files } = await readZipEntries(bytes, (n) => n.endsWith('.out'));
+		expect(files.map((f) => f.name)).toEqual(['a/neutral.out']);
+		// The same entry, when selected for reading, is refused by its ratio.
+		await expect(readZipEntries(bytes, () => true)).rejects.toMatchObject({ problem: 'compression-ratio', entry: 'a/water.db' });
+	});
 });
 
 describe('inspectZip: refused archives name the entry', () => {

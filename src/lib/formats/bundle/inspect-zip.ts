@@ -99,7 +99,7 @@ const S_IFREG = 0o100000;
 const S_IFDIR = 0o040000;
 const S_IFLNK = 0o120000;
 
-function checkEntry(e: ZipDirectoryEntry, limits: ZipLimits): void {
+function checkEntry(e: ZipDirectoryEntry, limits: ZipLimits, judgeRatio: boolean): void {
 	const reason = unsafeNameReason(e.name);
 	if (reason) throw new ArchiveError('unsafe-path', e.name, reason);
 	if (e.unixMode !== null) {
@@ -120,7 +120,9 @@ function checkEntry(e: ZipDirectoryEntry, limits: ZipLimits): void {
 	if (e.uncompressedBytes > limits.maxEntryBytes) {
 		throw new ArchiveError('entry-too-large', e.name, `${formatBytes(e.uncompressedBytes)} uncompressed exceeds the limit of ${formatBytes(limits.maxEntryBytes)} per file`);
 	}
-	if (e.uncompressedBytes > RATIO_FLOOR_BYTES) {
+	// Only entries that will be inflated are judged by their ratio: the engine's own scratch files
+	// (NWChem's runtime database `.db` compresses well over 100:1) may sit in a zipped run folder.
+	if (judgeRatio && e.uncompressedBytes > RATIO_FLOOR_BYTES) {
 		const ratio = e.uncompressedBytes / Math.max(e.compressedBytes, 1);
 		if (ratio > limits.maxCompressionRatio) {
 			throw new ArchiveError(
@@ -133,7 +135,11 @@ function checkEntry(e: ZipDirectoryEntry, limits: ZipLimits): void {
 }
 
 /** Inspect and open: the checks of {@link inspectZip}, plus the JSZip instance that read the archive. */
-async function openZip(bytes: Uint8Array, partial?: Partial<ZipLimits>): Promise<{ inspection: ZipInspection; zip: JSZip }> {
+async function openZip(
+	bytes: Uint8Array,
+	partial?: Partial<ZipLimits>,
+	willRead: (name: string) => boolean = () => true
+): Promise<{ inspection: ZipInspection; zip: JSZip }> {
 	const limits = checkZipLimits(partial);
 	if (!(bytes instanceof Uint8Array)) throw new ArchiveError('not-a-zip', null, 'the upload is not binary data');
 	if (bytes.length > limits.maxArchiveBytes) {
@@ -146,7 +152,7 @@ async function openZip(bytes: Uint8Array, partial?: Partial<ZipLimits>): Promise
 	const seen = new Map<string, string>();
 	let total = 0;
 	for (const e of directory) {
-		checkEntry(e, limits);
+		checkEntry(e, limits, willRead(e.name));
 		const key = e.name.replace(/\/$/, '').toLowerCase();
 		const prev = seen.get(key);
 		if (prev !== undefined) {
@@ -262,7 +268,7 @@ export async function readZipEntries(
 	select: (name: string) => boolean,
 	limits?: Partial<ZipLimits>
 ): Promise<{ inspection: ZipInspection; files: ZipEntryBytes[] }> {
-	const { inspection, zip } = await openZip(bytes, limits);
+	const { inspection, zip } = await openZip(bytes, limits, select);
 	const files: ZipEntryBytes[] = [];
 	for (const entry of inspection.entries) {
 		if (entry.directory || !select(entry.name)) continue;

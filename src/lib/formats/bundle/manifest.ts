@@ -14,7 +14,9 @@ export const BUNDLE_SCHEMA_VERSION = 1;
 /** Marks the JSON as a Kappaline run-bundle manifest (and not some other `manifest.json`). */
 export const BUNDLE_FORMAT = 'kappaline-run-bundle';
 
-export type BundleEngine = 'nwchem';
+/** Engines a bundle can be made for (Psi4 inputs need Psi4 >= 1.4). */
+export const BUNDLE_ENGINES = ['nwchem', 'psi4'] as const;
+export type BundleEngine = (typeof BUNDLE_ENGINES)[number];
 export type BundleFileRole = 'deck' | 'script' | 'readme';
 export type BundleStateLabel = 'neutral' | 'cation' | 'anion';
 export type BundleDeckKind = 'tuning' | 'screened';
@@ -318,7 +320,7 @@ export function readManifest(json: unknown): BundleManifest {
 		format: BUNDLE_FORMAT,
 		app: { name: 'Kappaline', version: str(app, 'version', 'app') },
 		createdAt,
-		engine: oneOf(root, 'engine', '(document)', ['nwchem'] as const),
+		engine: oneOf(root, 'engine', '(document)', BUNDLE_ENGINES),
 		basis: str(root, 'basis', '(document)'),
 		settings,
 		molecule: {

@@ -3,7 +3,12 @@
  * `submit-slurm.sh` and `submit-pbs.sh` submit one job-array task per deck. Each opens with a comment
  * block saying what it is, keeps the editable resources and the engine command at the top, runs
  * each deck inside its own folder (NWChem writes its scratch files to the working directory), and
- * skips decks whose output already ends with NWChem's closing "Total times" line.
+ * skips decks whose output is already finished: NWChem's closing "Total times" line, or Psi4's
+ * "Psi4 exiting successfully" (both as printed by the fixture runs in decks/fixtures).
+ *
+ * NWChem runs under MPI (`mpirun -np N nwchem deck.nw`); Psi4 is threaded
+ * (`psi4 -n N deck.in -o stdout`, so the output goes to standard output like NWChem's and lands
+ * in `deck.out`; `-o stdout` checked with Debian's Psi4 1.3.2).
  *
  * Style kept deliberately plain (quoted expansions, no eval, values restricted to safe characters)
  * so the scripts pass `bash -n` and a linter without special cases.
@@ -80,8 +85,13 @@ function pbsMemory(memory: string): string {
 	return `${memory.replace(/b$/i, '').toLowerCase()}b`;
 }
 
+/** The engine whose decks the scripts run. */
+export type ScriptEngine = 'nwchem' | 'psi4';
+
 /** What the scripts need to know about the bundle. */
 export interface ScriptContext {
+	/** Default nwchem. */
+	engine?: ScriptEngine;
 	/** Deck paths relative to the bundle folder, in run order. */
 	decks: readonly string[];
 	/** One line naming the molecule and calculation, for the header. */
@@ -89,10 +99,105 @@ export interface ScriptContext {
 	settings: ScriptSettings;
 }
 
-function checkDecks(decks: readonly string[]): void {
+/** What differs between the engines' scripts. */
+interface EngineProfile {
+	/** Name in titles and comments. */
+	label: string;
+	/** Deck extension, with the dot. */
+	ext: '.nw' | '.in';
+	/** The `finished` shell function (with its comment). */
+	finished: string[];
+	/** run-local.sh: the comment lines on how a deck is run, and the editable engine lines. */
+	localHow: string[];
+	localEditable: (s: ScriptSettings) => string[];
+	/** Slurm: the sbatch resource arguments for processes/threads, and run_engine's body. */
+	slurmCores: string;
+	slurmRun: string[];
+	/** PBS: the select statement and run_engine's body. */
+	pbsResources: string;
+	pbsRun: string[];
+	module: string;
+}
+
+const NWCHEM: EngineProfile = {
+	label: 'NWChem',
+	ext: '.nw',
+	finished: [
+		'# An output is finished when NWChem printed its closing "Total times" line.',
+		'finished() {',
+		'  [ -f "$1" ] && grep -q "Total times" "$1"',
+		'}'
+	],
+	localHow: [
+		'Runs each deck inside its own folder, one after another, as',
+		'  mpirun -np NPROC nwchem deck.nw > deck.out',
+		'and prints a progress line per deck. Decks whose output already ends with NWChem\'s',
+		'"Total times" line are skipped, so the script can be rerun after an interruption.',
+		'Usage: bash run-local.sh            (NPROC and the command below can be edited,',
+		'       NPROC=8 bash run-local.sh     or set from the environment)'
+	],
+	localEditable: (s) => [
+		`NPROC="\${NPROC:-${s.cores}}"`,
+		'# Extra MPI flags, e.g. MPI_FLAGS="--allow-run-as-root" when running as root in a container.',
+		'MPI_FLAGS="${MPI_FLAGS:-}"',
+		'# How one deck is run; $1 is the deck file, run inside its folder, standard output is the .out.',
+		'run_engine() {',
+		'  # shellcheck disable=SC2086',
+		'  mpirun $MPI_FLAGS -np "$NPROC" nwchem "$1"',
+		'}'
+	],
+	slurmCores: '--ntasks="$CORES"',
+	slurmRun: ['  srun nwchem "$1"', '  # or: mpirun -np "$CORES" nwchem "$1"'],
+	pbsResources: 'RESOURCES="select=1:ncpus=${CORES}:mpiprocs=${CORES}:mem=${MEMORY}"',
+	pbsRun: ['  mpirun -np "$CORES" nwchem "$1"'],
+	module: 'nwchem'
+};
+
+const PSI4: EngineProfile = {
+	label: 'Psi4',
+	ext: '.in',
+	finished: [
+		'# An output is finished when Psi4 printed its closing "Psi4 exiting successfully" line.',
+		'finished() {',
+		'  [ -f "$1" ] && grep -q "Psi4 exiting successfully" "$1"',
+		'}'
+	],
+	localHow: [
+		'Runs each deck inside its own folder, one after another, as',
+		'  psi4 -n NTHREADS deck.in -o stdout > deck.out',
+		'and prints a progress line per deck. Decks whose output already ends with Psi4\'s',
+		'"Psi4 exiting successfully" line are skipped, so the script can be rerun after an interruption.',
+		'Needs Psi4 1.4 or newer (1.3.2 cannot set omega on the functional).',
+		'Usage: bash run-local.sh               (NTHREADS and PSI4 below can be edited,',
+		'       NTHREADS=8 bash run-local.sh     or set from the environment)'
+	],
+	localEditable: (s) => [
+		`NTHREADS="\${NTHREADS:-${s.cores}}"`,
+		'# The Psi4 command, e.g. PSI4=/opt/psi4/bin/psi4 or PSI4="conda run -n p4env psi4".',
+		'PSI4="${PSI4:-psi4}"',
+		'# How one deck is run; $1 is the deck file, run inside its folder, standard output is the .out.',
+		'run_engine() {',
+		'  # shellcheck disable=SC2086',
+		'  $PSI4 -n "$NTHREADS" "$1" -o stdout',
+		'}'
+	],
+	slurmCores: '--ntasks=1 --cpus-per-task="$CORES"',
+	slurmRun: ['  "$PSI4" -n "$CORES" "$1" -o stdout'],
+	pbsResources: 'RESOURCES="select=1:ncpus=${CORES}:mem=${MEMORY}"',
+	pbsRun: ['  "$PSI4" -n "$CORES" "$1" -o stdout'],
+	module: 'psi4'
+};
+
+function profileOf(ctx: ScriptContext): EngineProfile {
+	const engine = ctx.engine ?? 'nwchem';
+	if (engine !== 'nwchem' && engine !== 'psi4') throw new BundleInputError('engine', `engine must be nwchem or psi4, got ${JSON.stringify(engine)}`);
+	return engine === 'psi4' ? PSI4 : NWCHEM;
+}
+
+function checkDecks(decks: readonly string[], p: EngineProfile): void {
 	if (decks.length === 0) throw new BundleInputError('decks', 'a script needs at least one deck');
 	decks.forEach((d, i) => {
-		if (!isSafeBundlePath(d) || !d.endsWith('.nw')) throw new BundleInputError(`decks[${i}]`, `unsafe or non-NWChem deck path ${JSON.stringify(d)}`);
+		if (!isSafeBundlePath(d) || !d.endsWith(p.ext)) throw new BundleInputError(`decks[${i}]`, `unsafe or non-${p.label} deck path ${JSON.stringify(d)}`);
 	});
 }
 
@@ -106,14 +211,6 @@ function deckArray(decks: readonly string[]): string[] {
 	return ['DECKS=(', ...decks.map((d) => `  "${d}"`), ')'];
 }
 
-/** Shell lines shared by all scripts: is an output finished? */
-const FINISHED_FUNCTION = [
-	'# An output is finished when NWChem printed its closing "Total times" line.',
-	'finished() {',
-	'  [ -f "$1" ] && grep -q "Total times" "$1"',
-	'}'
-];
-
 function clean(text: string): string {
 	// eslint-disable-next-line no-control-regex
 	return text.replace(/[\u0000-\u001f\u007f]+/g, ' ').trim();
@@ -121,35 +218,24 @@ function clean(text: string): string {
 
 /** `run-local.sh`: every deck in sequence, with a progress line, skipping finished outputs. */
 export function runLocalScript(ctx: ScriptContext): string {
-	checkDecks(ctx.decks);
+	const p = profileOf(ctx);
+	checkDecks(ctx.decks, p);
 	const s = ctx.settings;
 	const lines = [
-		...header('Kappaline run-local.sh: run every NWChem deck of this bundle on this machine', [
+		...header(`Kappaline run-local.sh: run every ${p.label} deck of this bundle on this machine`, [
 			clean(ctx.title),
 			'',
-			'Runs each deck inside its own folder, one after another, as',
-			'  mpirun -np NPROC nwchem deck.nw > deck.out',
-			'and prints a progress line per deck. Decks whose output already ends with NWChem\'s',
-			'"Total times" line are skipped, so the script can be rerun after an interruption.',
-			'Usage: bash run-local.sh            (NPROC and the command below can be edited,',
-			'       NPROC=8 bash run-local.sh     or set from the environment)',
+			...p.localHow,
 			'When everything has run, zip this whole folder (outputs beside their decks, manifest.json',
 			'included) and upload the zip to Kappaline.'
 		]),
 		'set -u',
 		'',
 		'# ---- EDITABLE -------------------------------------------------------------------',
-		`NPROC="\${NPROC:-${s.cores}}"`,
-		'# Extra MPI flags, e.g. MPI_FLAGS="--allow-run-as-root" when running as root in a container.',
-		'MPI_FLAGS="${MPI_FLAGS:-}"',
-		'# How one deck is run; $1 is the deck file, run inside its folder, standard output is the .out.',
-		'run_engine() {',
-		'  # shellcheck disable=SC2086',
-		'  mpirun $MPI_FLAGS -np "$NPROC" nwchem "$1"',
-		'}',
+		...p.localEditable(s),
 		'# ---------------------------------------------------------------------------------',
 		'',
-		...FINISHED_FUNCTION,
+		...p.finished,
 		'',
 		...deckArray(ctx.decks),
 		'',
@@ -160,14 +246,14 @@ export function runLocalScript(ctx: ScriptContext): string {
 		'for deck in "${DECKS[@]}"; do',
 		'  i=$((i + 1))',
 		'  dir=$(dirname "$deck")',
-		'  name=$(basename "$deck" .nw)',
+		`  name=$(basename "$deck" ${p.ext})`,
 		'  out="$dir/$name.out"',
 		'  if finished "$out"; then',
 		'    echo "[$i/$total] $deck: finished earlier, skipped"',
 		'    continue',
 		'  fi',
 		'  echo "[$i/$total] $deck: running ($(date +%H:%M:%S))"',
-		'  if (cd "$dir" && run_engine "$name.nw" > "$name.out" 2> "$name.err") && finished "$out"; then',
+		`  if (cd "$dir" && run_engine "$name${p.ext}" > "$name.out" 2> "$name.err") && finished "$out"; then`,
 		'    echo "[$i/$total] $deck: done ($(date +%H:%M:%S))"',
 		'  else',
 		'    failed=$((failed + 1))',
@@ -181,8 +267,13 @@ export function runLocalScript(ctx: ScriptContext): string {
 	return lines.join('\n');
 }
 
+/** The editable Psi4 command of the cluster scripts (nothing for NWChem). */
+function psi4Command(p: EngineProfile): string[] {
+	return p === PSI4 ? ['# The Psi4 command (1.4 or newer), e.g. PSI4=/opt/psi4/bin/psi4', 'PSI4="${PSI4:-psi4}"'] : [];
+}
+
 /** Lines of an array task: pick the deck of this index, skip it when finished, run it. */
-function taskBody(indexExpr: string, workDirVar: string): string[] {
+function taskBody(indexExpr: string, workDirVar: string, p: EngineProfile): string[] {
 	return [
 		`cd "${workDirVar}" || exit 1`,
 		`index=${indexExpr}`,
@@ -192,14 +283,14 @@ function taskBody(indexExpr: string, workDirVar: string): string[] {
 		'  exit 1',
 		'fi',
 		'dir=$(dirname "$deck")',
-		'name=$(basename "$deck" .nw)',
+		`name=$(basename "$deck" ${p.ext})`,
 		'if finished "$dir/$name.out"; then',
 		'  echo "$deck: finished earlier, skipped"',
 		'  exit 0',
 		'fi',
 		'echo "$deck: running on $(hostname) from $(date)"',
 		'cd "$dir" || exit 1',
-		'run_engine "$name.nw" > "$name.out" 2> "$name.err"',
+		`run_engine "$name${p.ext}" > "$name.out" 2> "$name.err"`,
 		'status=$?',
 		'echo "$deck: exit status $status at $(date)"',
 		'exit "$status"',
@@ -212,10 +303,11 @@ function taskBody(indexExpr: string, workDirVar: string): string[] {
  * at most `maxParallel` at once) with the resources at the top; inside a task it runs its deck.
  */
 export function slurmScript(ctx: ScriptContext): string {
-	checkDecks(ctx.decks);
+	const p = profileOf(ctx);
+	checkDecks(ctx.decks, p);
 	const s = ctx.settings;
 	const lines = [
-		...header('Kappaline submit-slurm.sh: run every NWChem deck of this bundle as a Slurm job array', [
+		...header(`Kappaline submit-slurm.sh: run every ${p.label} deck of this bundle as a Slurm job array`, [
 			clean(ctx.title),
 			'',
 			'Usage: edit the resources below, then from this folder:  bash submit-slurm.sh',
@@ -230,29 +322,29 @@ export function slurmScript(ctx: ScriptContext): string {
 		`ACCOUNT="${s.account}"        # --account (empty: your default account)`,
 		`PARTITION="${s.partition}"      # --partition (empty: the default partition)`,
 		`TIME="${s.time}"     # wall time per deck`,
-		`CORES="${s.cores}"             # MPI processes per deck (--ntasks)`,
+		p === PSI4 ? `CORES="${s.cores}"             # threads per deck (--cpus-per-task)` : `CORES="${s.cores}"             # MPI processes per deck (--ntasks)`,
 		`MEMORY="${slurmMemory(s.memory)}"           # memory per deck (--mem)`,
 		`MAX_PARALLEL="${s.maxParallel}"     # array tasks running at once`,
 		`JOB_NAME="${s.jobName}"`,
-		'# Load the engine here if your cluster uses modules, e.g.:  module load nwchem',
+		...psi4Command(p),
+		`# Load the engine here if your cluster uses modules, e.g.:  module load ${p.module}`,
 		'setup_environment() {',
 		'  :',
 		'}',
 		'# How one deck is run; $1 is the deck file, run inside its folder, standard output is the .out.',
 		'run_engine() {',
-		'  srun nwchem "$1"',
-		'  # or: mpirun -np "$CORES" nwchem "$1"',
+		...p.slurmRun,
 		'}',
 		'# ---------------------------------------------------------------------------------',
 		'',
-		...FINISHED_FUNCTION,
+		...p.finished,
 		'',
 		...deckArray(ctx.decks),
 		'',
 		'if [ -z "${SLURM_ARRAY_TASK_ID:-}" ]; then',
 		'  # Submission: this script, once per deck, as an array.',
 		'  cd "$(dirname "$0")" || exit 1',
-		'  args=(--job-name="$JOB_NAME" --array="1-${#DECKS[@]}%$MAX_PARALLEL" --ntasks="$CORES" --time="$TIME"',
+		`  args=(--job-name="$JOB_NAME" --array="1-\${#DECKS[@]}%$MAX_PARALLEL" ${p.slurmCores} --time="$TIME"`,
 		'    --mem="$MEMORY" --output="slurm-%A_%a.log")',
 		'  if [ -n "$ACCOUNT" ]; then args+=(--account="$ACCOUNT"); fi',
 		'  if [ -n "$PARTITION" ]; then args+=(--partition="$PARTITION"); fi',
@@ -261,7 +353,7 @@ export function slurmScript(ctx: ScriptContext): string {
 		'',
 		'# Array task: run deck number SLURM_ARRAY_TASK_ID (1-based) from the submission folder.',
 		'setup_environment',
-		...taskBody('"$SLURM_ARRAY_TASK_ID"', '$SLURM_SUBMIT_DIR')
+		...taskBody('"$SLURM_ARRAY_TASK_ID"', '$SLURM_SUBMIT_DIR', p)
 	];
 	return lines.join('\n');
 }
@@ -271,10 +363,11 @@ export function slurmScript(ctx: ScriptContext): string {
  * Torque users set ARRAY_FLAG to `-t`), one subjob per deck; inside a subjob it runs its deck.
  */
 export function pbsScript(ctx: ScriptContext): string {
-	checkDecks(ctx.decks);
+	const p = profileOf(ctx);
+	checkDecks(ctx.decks, p);
 	const s = ctx.settings;
 	const lines = [
-		...header('Kappaline submit-pbs.sh: run every NWChem deck of this bundle as a PBS job array', [
+		...header(`Kappaline submit-pbs.sh: run every ${p.label} deck of this bundle as a PBS job array`, [
 			clean(ctx.title),
 			'',
 			'Usage: edit the resources below, then from this folder:  bash submit-pbs.sh',
@@ -289,22 +382,23 @@ export function pbsScript(ctx: ScriptContext): string {
 		`ACCOUNT="${s.account}"        # -A (empty: your default account)`,
 		`QUEUE="${s.queue}"          # -q (empty: the default queue)`,
 		`TIME="${s.time}"     # walltime per deck`,
-		`CORES="${s.cores}"             # MPI processes per deck`,
+		`CORES="${s.cores}"             # ${p === PSI4 ? 'threads' : 'MPI processes'} per deck`,
 		`MEMORY="${pbsMemory(s.memory)}"          # memory per deck`,
 		`JOB_NAME="${s.jobName}"`,
 		'ARRAY_FLAG="-J"          # PBS Pro: -J; Torque: -t',
-		'RESOURCES="select=1:ncpus=${CORES}:mpiprocs=${CORES}:mem=${MEMORY}"',
-		'# Load the engine here if your cluster uses modules, e.g.:  module load nwchem',
+		p.pbsResources,
+		...psi4Command(p),
+		`# Load the engine here if your cluster uses modules, e.g.:  module load ${p.module}`,
 		'setup_environment() {',
 		'  :',
 		'}',
 		'# How one deck is run; $1 is the deck file, run inside its folder, standard output is the .out.',
 		'run_engine() {',
-		'  mpirun -np "$CORES" nwchem "$1"',
+		...p.pbsRun,
 		'}',
 		'# ---------------------------------------------------------------------------------',
 		'',
-		...FINISHED_FUNCTION,
+		...p.finished,
 		'',
 		...deckArray(ctx.decks),
 		'',
@@ -320,7 +414,7 @@ export function pbsScript(ctx: ScriptContext): string {
 		'',
 		'# Subjob: run deck number PBS_ARRAY_INDEX (PBS Pro) or PBS_ARRAYID (Torque), 1-based.',
 		'setup_environment',
-		...taskBody('"${PBS_ARRAY_INDEX:-${PBS_ARRAYID:-1}}"', '$PBS_O_WORKDIR')
+		...taskBody('"${PBS_ARRAY_INDEX:-${PBS_ARRAYID:-1}}"', '$PBS_O_WORKDIR', p)
 	];
 	return lines.join('\n');
 }

@@ -31,12 +31,14 @@ export function so2BundleInput(over: Partial<BundleInput> = {}): BundleInput {
 	};
 }
 
-/**
- * The scan point a combined tuning output gives (tasks in the order neutral, cation, anion), read with
- * the project's NWChem reader: what the ingestion must produce from the same file.
- */
-export function scanPointFromOutput(text: string, gammaBohrInv: number) {
-	const [n, c, a] = readNwchemOutput(text).tasks;
+/** The files at the top of every bundle, in zip order. */
+export const BUNDLE_TOP_FILES = ['README.txt', 'manifest.json', 'run-local.sh', 'submit-slurm.sh', 'submit-pbs.sh'];
+
+/** A scan point as the ingestion should give it: the neutral, cation and anion tasks of one gamma. */
+export function scanPointOf(
+	gammaBohrInv: number,
+	[n, c, a]: readonly { totalEnergyHartree: number | null; homoHartree: number | null; lumoHartree: number | null }[]
+) {
 	return {
 		gammaBohrInv,
 		eNeutralHartree: n.totalEnergyHartree,
@@ -46,4 +48,12 @@ export function scanPointFromOutput(text: string, gammaBohrInv: number) {
 		lumoNeutralHartree: n.lumoHartree,
 		homoAnionHartree: a.homoHartree
 	};
+}
+
+/**
+ * The scan point a combined tuning output gives (tasks in the order neutral, cation, anion), read with
+ * the project's NWChem reader: what the ingestion must produce from the same file.
+ */
+export function scanPointFromOutput(text: string, gammaBohrInv: number) {
+	return scanPointOf(gammaBohrInv, readNwchemOutput(text).tasks);
 }

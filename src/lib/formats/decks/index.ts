@@ -70,12 +70,31 @@ export {
 } from './nwchem-output';
 export {
 	DEFAULT_PSI4_SETTINGS,
+	PSI4_MIN_VERSION,
+	PSI4_VERSION_NOTE,
 	type Psi4Deck,
+	type Psi4DeckOptions,
 	type Psi4ScreenedJob,
 	type Psi4Settings,
 	type Psi4TuningJob,
+	type Psi4TuningScan,
 	psi4FunctionalDict,
 	writePsi4ScreenedJob,
-	writePsi4TuningJob
+	writePsi4TuningJob,
+	writePsi4TuningScan,
+	writePsi4TuningStateDecks
 } from './psi4';
+export { type DeckFileNames, type ScanLayout, checkScanGammas } from './scan';
+export {
+	type Psi4EchoedRangeSeparation,
+	type Psi4Error,
+	type Psi4Frontier,
+	type Psi4Orbital,
+	type Psi4Output,
+	type Psi4PrintedExchange,
+	type Psi4SummaryLine,
+	type Psi4TaskResult,
+	readPsi4Output
+} from './psi4-output';
+export { type EchoedParameters, type EngineOutput, type EngineTaskResult, detectEngine, echoedParameters, readEngineOutput } from './engine-output';
 export { DECK_MANIFEST_SCHEMA, type DeckManifest, type DeckManifestEntry, deckManifest } from './manifest';

@@ -192,31 +192,38 @@ export function frontierOrbitals(orbitals: readonly NwchemOrbital[]): NwchemFron
 	};
 }
 
-function blankTask(index: number, line: number): NwchemTaskResult {
+/** The counts, energies and frontier fields of a task before anything is read (shared with the Psi4 reader). */
+export function blankTaskNumbers(index: number, line: number) {
 	return {
 		index,
 		line,
-		title: null,
-		wavefunction: null,
-		unrestricted: null,
 		electrons: null,
 		alphaElectrons: null,
 		betaElectrons: null,
 		charge: null,
 		multiplicity: null,
 		basisFunctions: null,
-		xc: [],
-		rangeSeparation: null,
 		totalEnergyHartree: null,
-		nuclearRepulsionHartree: null,
 		iterations: null,
 		converged: false,
-		alphaOrbitals: [],
-		betaOrbitals: null,
 		alphaFrontier: { homoHartree: null, lumoHartree: null, homoIndex: null, lumoIndex: null },
 		betaFrontier: null,
 		homoHartree: null,
-		lumoHartree: null,
+		lumoHartree: null
+	};
+}
+
+function blankTask(index: number, line: number): NwchemTaskResult {
+	return {
+		...blankTaskNumbers(index, line),
+		title: null,
+		wavefunction: null,
+		unrestricted: null,
+		xc: [],
+		rangeSeparation: null,
+		nuclearRepulsionHartree: null,
+		alphaOrbitals: [],
+		betaOrbitals: null,
 		s2: null,
 		cpuSeconds: null,
 		wallSeconds: null,

@@ -25,6 +25,7 @@ import {
 import { MAX_JOB_NAME, checkJobName, deckFileName, epsilonTag, gammaTag, jobNameFrom } from './names';
 import { type DeckProvenance, checkProvenance, deckHeader } from './provenance';
 import { type SrshParameters, fullRangeSemilocalWeight, gasPhaseSrsh, screenedSrsh } from './srsh';
+import { type DeckFileNames, type ScanLayout, MAX_SCAN_POINTS, checkFileNames, scanDecks, stateFileName } from './scan';
 import { formatReal, formatThreshold, titleText } from './text';
 
 /** NWChem DFT integration grids (documentation, section GRID). */
@@ -230,13 +231,7 @@ export interface NwchemDeckOptions {
 	 * one deck), for layouts where the folder carries gamma or epsilon. The start name (and so the
 	 * scratch files) stays unique either way.
 	 */
-	fileNames?: 'start' | 'state';
-}
-
-function checkFileNames(options: NwchemDeckOptions | undefined): 'start' | 'state' {
-	const f = options?.fileNames ?? 'start';
-	if (f !== 'start' && f !== 'state') throw new DeckInputError('fileNames', `fileNames must be start or state, got ${JSON.stringify(f)}`);
-	return f;
+	fileNames?: DeckFileNames;
 }
 
 function render(
@@ -247,11 +242,10 @@ function render(
 	folder: string,
 	states: DeckState[],
 	purpose: string,
-	fileNames: 'start' | 'state' = 'start'
+	fileNames: DeckFileNames = 'start'
 ): NwchemDeck {
 	checkJobName(jobName, 'jobName', MAX_JOB_NAME);
-	const fileName =
-		fileNames === 'start' ? deckFileName(jobName, 'nw') : `${states.map((s) => s.label).join('-')}.nw`;
+	const fileName = fileNames === 'start' ? deckFileName(jobName, 'nw') : stateFileName(states, 'nw');
 	const molName = titleText(prep.provenance.molecule, 24) || prep.base;
 	const deckStates: NwchemDeckState[] = states.map((s) => ({
 		...s,
@@ -334,7 +328,7 @@ export function writeNwchemTuningStateDecks(job: NwchemTuningJob, options: Nwche
 /** Options of {@link writeNwchemTuningScan}. */
 export interface NwchemScanOptions extends NwchemDeckOptions {
 	/** `combined`: one deck per gamma (default); `per-state`: three decks per gamma. */
-	layout?: 'combined' | 'per-state';
+	layout?: ScanLayout;
 }
 
 /** A tuning scan: the job without a single gamma, plus the gammas (bohr^-1). */
@@ -342,40 +336,14 @@ export interface NwchemTuningScan extends Omit<NwchemTuningJob, 'gammaBohrInv'> 
 	gammasBohrInv: readonly number[];
 }
 
-/** Most gamma points accepted in one scan. */
-export const MAX_SCAN_POINTS = 200;
+export { MAX_SCAN_POINTS };
 
 /**
  * Decks for every gamma of a scan, in the order given, each with a folder-friendly name
  * (`g0p1500`, `g0p2000`, ...). Duplicated gammas (same tag) are refused.
  */
 export function writeNwchemTuningScan(scan: NwchemTuningScan, options: NwchemScanOptions = {}): NwchemDeck[] {
-	const layout = options.layout ?? 'combined';
-	const fileNames = checkFileNames(options);
-	if (layout !== 'combined' && layout !== 'per-state') {
-		throw new DeckInputError('layout', `layout must be combined or per-state, got ${JSON.stringify(layout)}`);
-	}
-	const gammas = scan?.gammasBohrInv;
-	if (!Array.isArray(gammas) || gammas.length === 0) {
-		throw new DeckInputError('gammasBohrInv', 'at least one gamma is needed');
-	}
-	if (gammas.length > MAX_SCAN_POINTS) {
-		throw new DeckInputError('gammasBohrInv', `at most ${MAX_SCAN_POINTS} gammas per scan, got ${gammas.length}`);
-	}
-	const seen = new Map<string, number>();
-	gammas.forEach((g, i) => {
-		const tag = gammaTag(g, `gammasBohrInv[${i}]`);
-		const prev = seen.get(tag);
-		if (prev !== undefined) {
-			throw new DeckInputError(`gammasBohrInv[${i}]`, `gamma ${g} duplicates gammasBohrInv[${prev}] = ${gammas[prev]} (tag ${tag})`);
-		}
-		seen.set(tag, i);
-	});
-	const { gammasBohrInv: _omit, ...rest } = scan;
-	return gammas.flatMap((g) => {
-		const job: NwchemTuningJob = { ...rest, gammaBohrInv: g };
-		return layout === 'combined' ? [writeNwchemTuningJob(job, { fileNames })] : writeNwchemTuningStateDecks(job, { fileNames });
-	});
+	return scanDecks<NwchemTuningJob, NwchemDeck>(scan, options, writeNwchemTuningJob, writeNwchemTuningStateDecks);
 }
 
 /**

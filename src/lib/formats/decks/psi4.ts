@@ -13,7 +13,9 @@
  * In a dictionary functional the key "alpha" of an x_functionals entry is that component's weight,
  * while "alpha"/"beta" of x_hf mean the same as NWChem's cam_alpha/cam_beta (and Kappaline's letters).
  * Psi4 1.3.2 (Debian 12) cannot set omega on a LibXC exchange functional (it stops with
- * "set_omega not implemented"), so these inputs need a newer Psi4; the header says so.
+ * "set_omega not implemented", fixtures/README.md), so these inputs need Psi4 1.4 or newer (the
+ * first release after 1.3.2; that it sets omega is recalled from its release notes, not verified
+ * here); the header says so.
  */
 import { DeckInputError } from './errors';
 import {
@@ -28,6 +30,7 @@ import {
 import { MAX_JOB_NAME, checkJobName, deckFileName, epsilonTag, gammaTag, jobNameFrom } from './names';
 import { type DeckProvenance, checkProvenance, deckHeader } from './provenance';
 import { type SrshParameters, fullRangeSemilocalWeight, gasPhaseSrsh, screenedSrsh } from './srsh';
+import { type DeckFileNames, type ScanLayout, checkFileNames, scanDecks, stateFileName } from './scan';
 import { formatReal, formatThreshold } from './text';
 
 /** Editable settings written at the top of every Psi4 input. */
@@ -151,11 +154,15 @@ function engineNotes(p: SrshParameters, fileName: string): string[] {
 	return [
 		`x_functionals: GGA_X_HJS_PBE (short-range PBE exchange, HJS model) with weight beta = ${formatReal(p.beta)} and omega = gamma; GGA_X_PBE (full-range PBE exchange) with weight 1 - alpha - beta = ${formatReal(fullRangeSemilocalWeight(p))}. The key "alpha" inside an x_functionals entry is that component's weight.`,
 		'x_hf: {alpha, beta, omega} is Psi4\'s exact exchange alpha/r + beta*erf(omega*r)/r: the same letters as above (omega = gamma, bohr^-1).',
-		'Needs a Psi4 that can set omega on LibXC exchange functionals: Psi4 1.3.2 (Debian 12) stops with "set_omega not implemented"; use a newer release.',
+		PSI4_VERSION_NOTE,
 		'Ions are spin-unrestricted (reference uks); geometry frozen (no_reorient, no_com, symmetry c1).',
 		`Run: psi4 -n 2 ${fileName}`
 	];
 }
+
+/** The release these inputs need, stated in every header, the bundle README and the bundle page. */
+export const PSI4_MIN_VERSION = '1.4';
+export const PSI4_VERSION_NOTE = `Needs Psi4 ${PSI4_MIN_VERSION} or newer, which can set omega (gamma) on LibXC exchange functionals: Psi4 1.3.2 (Debian 12) stops with "set_omega not implemented".`;
 
 function settingsBlock(s: Psi4Settings): string[] {
 	return [
@@ -184,10 +191,11 @@ function render(
 	jobName: string,
 	folder: string,
 	states: DeckState[],
-	purpose: string
+	purpose: string,
+	fileNames: DeckFileNames = 'start'
 ): Psi4Deck {
 	checkJobName(jobName, 'jobName', MAX_JOB_NAME);
-	const fileName = deckFileName(jobName, 'in');
+	const fileName = fileNames === 'start' ? deckFileName(jobName, 'in') : stateFileName(states, 'in');
 	const lines = deckHeader({
 		title: `Kappaline input for Psi4 (dictionary functional): ${kind === 'tuning' ? 'SRSH-PBE gamma-tuning states at one gamma' : 'SRSH-PBE screened rerun of the neutral'}`,
 		purpose,
@@ -252,17 +260,46 @@ const SCREENED_PURPOSE =
 	'Screened rerun of the neutral: alpha as tuned, gamma at its gas-phase optimum, long-range exact-exchange ' +
 	'fraction 1/epsilon (beta = 1/epsilon - alpha). IP_s ~ -eps_HOMO and EA_s ~ -eps_LUMO of this run.';
 
+/** How Psi4 input files are named (see {@link DeckFileNames}). */
+export interface Psi4DeckOptions {
+	fileNames?: DeckFileNames;
+}
+
 /** Psi4 input for the three tuning states at one gamma (gas phase, beta = 1 - alpha). */
-export function writePsi4TuningJob(job: Psi4TuningJob): Psi4Deck {
+export function writePsi4TuningJob(job: Psi4TuningJob, options: Psi4DeckOptions = {}): Psi4Deck {
+	const fileNames = checkFileNames(options);
 	const { base, provenance, settings, molecule } = prepare(job);
 	const parameters = gasPhaseSrsh(job.alpha, job.gammaBohrInv);
 	const tag = gammaTag(parameters.gammaBohrInv);
 	const states = tuningStates(molecule, { cationMultiplicity: job.cationMultiplicity, anionMultiplicity: job.anionMultiplicity });
-	return render('tuning', base, provenance, settings, molecule, parameters, `${base}_${tag}`, tag, states, TUNING_PURPOSE);
+	return render('tuning', base, provenance, settings, molecule, parameters, `${base}_${tag}`, tag, states, TUNING_PURPOSE, fileNames);
+}
+
+/** Three inputs for one gamma, one per state, named `<job>_<gamma tag>_<state>`. */
+export function writePsi4TuningStateDecks(job: Psi4TuningJob, options: Psi4DeckOptions = {}): Psi4Deck[] {
+	const fileNames = checkFileNames(options);
+	const { base, provenance, settings, molecule } = prepare(job);
+	const parameters = gasPhaseSrsh(job.alpha, job.gammaBohrInv);
+	const tag = gammaTag(parameters.gammaBohrInv);
+	const states = tuningStates(molecule, { cationMultiplicity: job.cationMultiplicity, anionMultiplicity: job.anionMultiplicity });
+	return states.map((state) =>
+		render('tuning', base, provenance, settings, molecule, parameters, `${base}_${tag}_${state.label}`, tag, [state], TUNING_PURPOSE, fileNames)
+	);
+}
+
+/** A Psi4 tuning scan: the job without a single gamma, plus the gammas (bohr^-1). */
+export interface Psi4TuningScan extends Omit<Psi4TuningJob, 'gammaBohrInv'> {
+	gammasBohrInv: readonly number[];
+}
+
+/** Inputs for every gamma of a scan, in the order given (`combined` by default, or `per-state`). */
+export function writePsi4TuningScan(scan: Psi4TuningScan, options: Psi4DeckOptions & { layout?: ScanLayout } = {}): Psi4Deck[] {
+	return scanDecks<Psi4TuningJob, Psi4Deck>(scan, options, writePsi4TuningJob, writePsi4TuningStateDecks);
 }
 
 /** Psi4 input for the screened neutral: beta = 1/epsilon - alpha, gamma unchanged. */
-export function writePsi4ScreenedJob(job: Psi4ScreenedJob): Psi4Deck {
+export function writePsi4ScreenedJob(job: Psi4ScreenedJob, options: Psi4DeckOptions = {}): Psi4Deck {
+	const fileNames = checkFileNames(options);
 	const { base, provenance, settings, molecule } = prepare(job);
 	const parameters = screenedSrsh(job.alpha, job.gammaBohrInv, job.epsilon);
 	const gTag = gammaTag(parameters.gammaBohrInv);
@@ -277,6 +314,7 @@ export function writePsi4ScreenedJob(job: Psi4ScreenedJob): Psi4Deck {
 		`${base}_${gTag}_${eTag}`,
 		`screened_${eTag}`,
 		[neutralState(molecule)],
-		SCREENED_PURPOSE
+		SCREENED_PURPOSE,
+		fileNames
 	);
 }

@@ -44,7 +44,8 @@ async function bundleInput(db: Executor, workspaceId: string, req: BundleRequest
 		moleculeName: m.name,
 		polymorphLabel,
 		input: {
-			engine: 'nwchem',
+			// Requests recorded before the engine choice have none: NWChem, as they were built.
+			engine: req.engine ?? 'nwchem',
 			molecule: { name: m.name, atoms, charge: m.net_charge, multiplicity: m.multiplicity },
 			alpha: req.alpha,
 			tuning: req.tuningGammas?.length ? { gammasBohrInv: req.tuningGammas, layout: req.tuningLayout } : null,
@@ -77,7 +78,7 @@ export async function createBundle(db: Executor, actor: Actor, req: BundleReques
 	}
 	const sha256 = await sha256Hex(bytes);
 	const stamp = createdAt.slice(0, 16).replace(/[-:T]/g, '');
-	const fileName = `kappaline-${moleculeName.replace(/[^\w-]+/g, '-').replace(/^-|-$/g, '').slice(0, 40) || 'molecule'}-${kindOf(req).replace('+', '-')}-${stamp}.zip`;
+	const fileName = `kappaline-${moleculeName.replace(/[^\w-]+/g, '-').replace(/^-|-$/g, '').slice(0, 40) || 'molecule'}-${kindOf(req).replace('+', '-')}${req.engine === 'psi4' ? '-psi4' : ''}-${stamp}.zip`;
 	const row = await inTransaction(db, async (tx) => {
 		const r = await tx
 			.insertInto('bundle')
@@ -96,7 +97,7 @@ export async function createBundle(db: Executor, actor: Actor, req: BundleReques
 			})
 			.returningAll()
 			.executeTakeFirstOrThrow();
-		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'molecule', entityId: req.moleculeId, action: 'update', summary: `made a rerun bundle (${kindOf(req)}, ${fileCount} files) for ${moleculeName}` });
+		await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.userId, entityType: 'molecule', entityId: req.moleculeId, action: 'update', summary: `made a rerun bundle (${kindOf(req)}${req.engine === 'psi4' ? ', Psi4' : ''}, ${fileCount} files) for ${moleculeName}` });
 		return r;
 	});
 	return { record: toRecord(row, null), bytes };
@@ -105,7 +106,7 @@ export async function createBundle(db: Executor, actor: Actor, req: BundleReques
 function toRecord(r: { id: string; kind: string; file_name: string; sha256: string; size_bytes: number; file_count: number; created_at: Date; polymorph_id: string | null; study_id: string | null; request: unknown }, email: string | null): BundleRecord {
 	const req = r.request as BundleRequest;
 	const parts = [req.tuningGammas?.length ? `${req.tuningGammas.length} gamma values` : '', req.screened ? `ε ${req.screened.epsilons.join(', ')} at γ ${req.screened.gammaBohrInv}` : ''].filter(Boolean);
-	return { id: r.id, kind: r.kind, fileName: r.file_name, sha256: r.sha256, sizeBytes: r.size_bytes, fileCount: r.file_count, createdAt: r.created_at, createdBy: email, polymorphId: r.polymorph_id, studyId: r.study_id, summary: `${parts.join('; ')} · α ${req.alpha} · ${req.basis}` };
+	return { id: r.id, kind: r.kind, fileName: r.file_name, sha256: r.sha256, sizeBytes: r.size_bytes, fileCount: r.file_count, createdAt: r.created_at, createdBy: email, polymorphId: r.polymorph_id, studyId: r.study_id, summary: `${req.engine === 'psi4' ? 'Psi4 · ' : ''}${parts.join('; ')} · α ${req.alpha} · ${req.basis}` };
 }
 
 export async function listBundles(db: Executor, workspaceId: string, filter: { moleculeId?: string; polymorphId?: string } = {}): Promise<BundleRecord[]> {
