@@ -5,7 +5,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { CifParseError, parseCif, polymorphFromCif } from './cif';
 import { ManifestError, readManifest } from './bundle';
-import { EngineOutputError, readNwchemOutput } from './decks';
+import { EngineOutputError, readNwchemOutput, readPsi4Output } from './decks';
 import { ScanTableError, parseScanPoints } from './scan-table';
 import { TensorParseError, parseDielectricTensor } from './tensor';
 import { XyzParseError, parseXyz } from './xyz';
@@ -14,6 +14,7 @@ import cifFixture from './fixtures/cod-2205750.cif?raw';
 import xyzFixture from './fixtures/anthracene.xyz?raw';
 import scanFixture from './fixtures/scan-comma-hartree.csv?raw';
 import outFixture from './decks/fixtures/water_pbe0_reference.out?raw';
+import psi4Fixture from './decks/fixtures/psi4_water_tuning_g0p1100.out?raw';
 import { FormulaError } from '$lib/science/elements';
 
 const RUNS = { numRuns: 300 };
@@ -54,5 +55,6 @@ describe('parsers under random and mutated input', () => {
 	it('dielectric tensors', () => fc.assert(fc.property(fc.oneof(anyText, mutated('3.1 0.05 0\n0.05 2.8 0.1\n0 0.1 4.2\n'), mutated('{"xx":3,"yy":3,"zz":4,"xy":0.1}')), (t) => parsesOrOwnError(() => parseDielectricTensor(t), TensorParseError)), RUNS));
 	it('scan tables', () => fc.assert(fc.property(fc.oneof(anyText, mutated(scanFixture)), (t) => parsesOrOwnError(() => parseScanPoints(t, { energyUnit: 'hartree' }), ScanTableError, TuningInputError)), RUNS));
 	it('NWChem outputs', () => fc.assert(fc.property(fc.oneof(anyText, mutated(outFixture)), (t) => parsesOrOwnError(() => readNwchemOutput(t), EngineOutputError)), { numRuns: 100 }));
+	it('Psi4 outputs', () => fc.assert(fc.property(fc.oneof(anyText, mutated(psi4Fixture)), (t) => parsesOrOwnError(() => readPsi4Output(t), EngineOutputError)), { numRuns: 100 }));
 	it('bundle manifests (any JSON value)', () => fc.assert(fc.property(fc.jsonValue(), (v) => parsesOrOwnError(() => readManifest(v), ManifestError)), RUNS));
 });
