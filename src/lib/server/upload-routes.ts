@@ -2,11 +2,11 @@ import { json, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from './authz';
 import { db } from './db';
-import { api, readUploadFiles } from './http';
+import { api, formFailure, formFiles, readUploadFiles } from './http';
 import { confirmUpload, discardUpload, previewUpload, type UploadTargetKind } from './services/output-uploads';
 
 /**
- * The /api/v1 handlers of output uploads, shared by the study (scan points) and polymorph (screened
+ * The /api/v1 handlers and page form actions of output uploads, shared by the study (scan points) and polymorph (screened
  * reruns) routes: POST the outputs for a preview (nothing stored), POST .../{upload}/confirm to store,
  * DELETE .../{upload} to discard. Each checks the editor role itself.
  */
@@ -32,3 +32,43 @@ export const discardRoute = (kind: UploadTargetKind) =>
 		await discardUpload(db(), actor, target(kind, event), uploadId(event));
 		return new Response(null, { status: 204 });
 	});
+
+/**
+ * The same three steps as form actions of the study and levels pages (the page names them). Failures
+ * carry `_section`, so the page shows them beside its upload block.
+ */
+export function uploadFormActions(kind: UploadTargetKind, section: string) {
+	const fields = async (event: RequestEvent) => Object.fromEntries(await event.request.formData()) as Record<string, string>;
+	const formUploadId = (values: Record<string, string>) => z.uuid('not a valid upload id').parse(values.upload);
+	return {
+		preview: async (event: RequestEvent) => {
+			const actor = await requireRole(event, event.params.ws!, 'editor');
+			try {
+				const files = await formFiles(await event.request.formData(), 'outputs');
+				return { upload: await previewUpload(db(), actor, target(kind, event), files) };
+			} catch (e) {
+				return formFailure(e, { _section: section });
+			}
+		},
+		confirm: async (event: RequestEvent) => {
+			const actor = await requireRole(event, event.params.ws!, 'editor');
+			const values = await fields(event);
+			try {
+				const r = await confirmUpload(db(), actor, target(kind, event), formUploadId(values));
+				return { ingested: { inserted: r.inserted, filled: r.filled, skipped: r.skipped } };
+			} catch (e) {
+				return formFailure(e, { ...values, _section: section });
+			}
+		},
+		discard: async (event: RequestEvent) => {
+			const actor = await requireRole(event, event.params.ws!, 'editor');
+			const values = await fields(event);
+			try {
+				await discardUpload(db(), actor, target(kind, event), formUploadId(values));
+				return { discarded: true };
+			} catch (e) {
+				return formFailure(e, { ...values, _section: section });
+			}
+		}
+	};
+}

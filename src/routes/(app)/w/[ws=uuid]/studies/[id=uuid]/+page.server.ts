@@ -4,11 +4,12 @@ import { ScanTableError, applyMapping, parseScanTable, type ScanMapping } from '
 import { requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { NotFoundError, ValidationError } from '$lib/server/errors';
-import { formFailure, formFiles } from '$lib/server/http';
+import { formFailure } from '$lib/server/http';
 import { listActivity } from '$lib/server/repo/activity';
 import { exclusionInput, studyInput, tuningObjective } from '$lib/schemas/tuning';
 import { deleteStudy, getStudy, importPoints, markCurrent, saveAnalysis, setPointExclusion, updatePoint, updateStudy } from '$lib/server/services/tuning';
-import { confirmUpload, discardUpload, latestPendingUpload, previewUpload } from '$lib/server/services/output-uploads';
+import { latestPendingUpload } from '$lib/server/services/output-uploads';
+import { uploadFormActions } from '$lib/server/upload-routes';
 import { canEdit } from '$lib/roles';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -28,6 +29,7 @@ export const load: PageServerLoad = async (event) => {
 const form = async (event: { request: Request }) => Object.fromEntries(await event.request.formData()) as Record<string, string>;
 const version = z.coerce.number().int().min(1, 'send the version you read');
 const uuid = z.uuid('not a valid id');
+const ingestActions = uploadFormActions('study', 'ingest');
 
 const importForm = z.object({
 	text: z.string().min(1, 'paste or upload a scan table first').max(1024 * 1024, 'the table is larger than 1 MiB'),
@@ -82,35 +84,9 @@ export const actions: Actions = {
 		}
 		redirect(303, `/w/${actor.workspaceId}/molecules/${moleculeId}`);
 	},
-	ingest: async (event) => {
-		const actor = await requireRole(event, event.params.ws, 'editor');
-		try {
-			const files = await formFiles(await event.request.formData(), 'outputs');
-			return { upload: await previewUpload(db(), actor, { kind: 'study', id: event.params.id }, files) };
-		} catch (e) {
-			return formFailure(e, { _section: 'ingest' });
-		}
-	},
-	confirmIngest: async (event) => {
-		const actor = await requireRole(event, event.params.ws, 'editor');
-		const values = await form(event);
-		try {
-			const r = await confirmUpload(db(), actor, { kind: 'study', id: event.params.id }, uuid.parse(values.upload));
-			return { ingested: { inserted: r.inserted, filled: r.filled, skipped: r.skipped } };
-		} catch (e) {
-			return formFailure(e, { ...values, _section: 'ingest' });
-		}
-	},
-	discardIngest: async (event) => {
-		const actor = await requireRole(event, event.params.ws, 'editor');
-		const values = await form(event);
-		try {
-			await discardUpload(db(), actor, { kind: 'study', id: event.params.id }, uuid.parse(values.upload));
-			return { discarded: true };
-		} catch (e) {
-			return formFailure(e, { ...values, _section: 'ingest' });
-		}
-	},
+	ingest: ingestActions.preview,
+	confirmIngest: ingestActions.confirm,
+	discardIngest: ingestActions.discard,
 	import: async (event) => {
 		const actor = await requireRole(event, event.params.ws, 'editor');
 		const values = await form(event);

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { NotFoundError } from '$lib/server/errors';
-import { formFailure, formFiles } from '$lib/server/http';
+import { formFailure } from '$lib/server/http';
 import { measurementInput } from '$lib/schemas/measurement';
 import { levelsContext } from '$lib/server/services/levels';
 import { addMeasurement, deleteMeasurement } from '$lib/server/services/measurements';
@@ -11,7 +11,8 @@ import { listBundles } from '$lib/server/services/bundles';
 import { listEstimates, saveEstimate } from '$lib/server/services/estimates';
 import { levelsQuery, substrateOf } from '$lib/schemas/levels';
 import { addReruns, deleteRerun, listReruns } from '$lib/server/services/reruns';
-import { confirmUpload, discardUpload, latestPendingUpload, previewUpload } from '$lib/server/services/output-uploads';
+import { latestPendingUpload } from '$lib/server/services/output-uploads';
+import { uploadFormActions } from '$lib/server/upload-routes';
 import { canEdit } from '$lib/roles';
 import { HARTREE_EV } from '$lib/science/units';
 import { getPolymorph } from '$lib/server/services/polymorphs';
@@ -41,6 +42,8 @@ export const load: PageServerLoad = async (event) => {
 	const pendingUpload = canEdit(actor.role) ? await latestPendingUpload(db(), actor, { kind: 'polymorph', id: polymorph.id }) : null;
 	return { polymorph, ...context, bundles, reruns, estimates, pendingUpload };
 };
+
+const outputActions = uploadFormActions('polymorph', 'outputs');
 
 export const actions: Actions = {
 	addMeasurement: async (event) => {
@@ -76,35 +79,9 @@ export const actions: Actions = {
 		}
 		return { saved: 'rerun' };
 	},
-	uploadOutputs: async (event) => {
-		const actor = await requireRole(event, event.params.ws, 'editor');
-		try {
-			const files = await formFiles(await event.request.formData(), 'outputs');
-			return { upload: await previewUpload(db(), actor, { kind: 'polymorph', id: event.params.id }, files) };
-		} catch (e) {
-			return formFailure(e, { _section: 'outputs' });
-		}
-	},
-	confirmOutputs: async (event) => {
-		const actor = await requireRole(event, event.params.ws, 'editor');
-		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
-		try {
-			const r = await confirmUpload(db(), actor, { kind: 'polymorph', id: event.params.id }, z.uuid('not a valid upload id').parse(values.upload));
-			return { saved: 'outputs', stored: r.inserted, skipped: r.skipped };
-		} catch (e) {
-			return formFailure(e, { ...values, _section: 'outputs' });
-		}
-	},
-	discardOutputs: async (event) => {
-		const actor = await requireRole(event, event.params.ws, 'editor');
-		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
-		try {
-			await discardUpload(db(), actor, { kind: 'polymorph', id: event.params.id }, z.uuid('not a valid upload id').parse(values.upload));
-			return { discarded: true };
-		} catch (e) {
-			return formFailure(e, { ...values, _section: 'outputs' });
-		}
-	},
+	uploadOutputs: outputActions.preview,
+	confirmOutputs: outputActions.confirm,
+	discardOutputs: outputActions.discard,
 	deleteRerun: async (event) => {
 		const actor = await requireRole(event, event.params.ws, 'editor');
 		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
